@@ -1,0 +1,77 @@
+#!/usr/bin/env bash
+# terzo set-up: installs what is missing (Debian 12, as root), builds, then runs or tests.
+#   ./build.sh run    build, then open the demo (GUI when a display exists, else the terminal analysis)
+#   ./build.sh test   build, then run every test through ctest
+#   ./build.sh build  build only
+# Environment: BUILD_DIR (default build), BUILD_TYPE (default Release), JOBS (default: all cores).
+set -euo pipefail
+cd "$(dirname "$0")"
+
+BUILD_DIR=${BUILD_DIR:-build}
+BUILD_TYPE=${BUILD_TYPE:-Release}
+JOBS=${JOBS:-$(nproc 2>/dev/null || echo 2)}
+ACTION=${1:-run}
+
+# Every Debian package the project builds, tests or runs with. Keep this the only list.
+PACKAGES=(
+  cmake ninja-build g++ pkg-config python3
+  libboost-dev libsfml-dev libimgui-dev catch2 libcli11-dev libfmt-dev nlohmann-json3-dev
+  libbenchmark-dev libfftw3-dev
+  xvfb xauth xdotool
+  clang libclang-rt-14-dev
+)
+
+missing_packages() {
+  local p
+  for p in "${PACKAGES[@]}"; do
+    dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || echo "$p"
+  done
+}
+
+install_missing() {
+  local missing
+  missing=$(missing_packages | tr '\n' ' ')
+  [ -z "${missing// /}" ] && return 0
+  if [ "$(id -u)" != 0 ] || ! command -v apt-get >/dev/null 2>&1; then
+    echo "build.sh: these Debian packages are missing and cannot be installed here (needs apt-get as root):" >&2
+    echo "  apt-get install -y --no-install-recommends $missing" >&2
+    exit 1
+  fi
+  echo "build.sh: installing $missing"
+  export DEBIAN_FRONTEND=noninteractive
+  apt-get update -qq
+  # shellcheck disable=SC2086
+  apt-get install -y -qq --no-install-recommends $missing
+}
+
+configure_and_build() {
+  local dir=$1; shift
+  if [ ! -f "$dir/CMakeCache.txt" ]; then
+    cmake -S . -B "$dir" -G Ninja -DCMAKE_BUILD_TYPE="$BUILD_TYPE" "$@"
+  fi
+  cmake --build "$dir" -j "$JOBS"
+}
+
+case "$ACTION" in
+  build)
+    install_missing
+    configure_and_build "$BUILD_DIR"
+    ;;
+  run)
+    install_missing
+    configure_and_build "$BUILD_DIR"
+    if [ -n "${DISPLAY:-}" ] && [ -x "$BUILD_DIR/gui/terzo-gui" ]; then
+      exec "$BUILD_DIR/gui/terzo-gui" assets/demo.scl
+    fi
+    exec "$BUILD_DIR/cli/terzo" demo
+    ;;
+  test)
+    install_missing
+    configure_and_build "$BUILD_DIR"
+    (cd "$BUILD_DIR" && ctest --output-on-failure -j "$JOBS")
+    ;;
+  *)
+    echo "usage: ./build.sh run|test|build" >&2
+    exit 2
+    ;;
+esac

@@ -1,0 +1,12 @@
+// The subcommands of `terzo`. Each file cmd_<name>.cpp registers one: its options, help
+// text and the call into core. Nothing here computes; output is produced in full before
+// anything is printed, so an error leaves stdout empty.
+#pragma once
+
+#include <CLI/CLI.hpp>
+
+namespace terzo::cli {
+
+void add_inspect(CLI::App& app);
+
+} // namespace terzo::cli

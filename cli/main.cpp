@@ -1,0 +1,25 @@
+// terzo: the command-line front end. Parses arguments, calls core, prints.
+#include <iostream>
+
+#include "cli/commands.hpp"
+#include "core/error.hpp"
+
+int main(int argc, char** argv) {
+    CLI::App app{"terzo: a workbench for tunings and temperaments, built around the combination\n"
+                 "tones (resultants) of every dyad and chord. Give a subcommand; each has --help."};
+    app.set_version_flag("--version", std::string("terzo ") + TERZO_VERSION);
+    app.require_subcommand(1);
+    terzo::cli::add_inspect(app);
+    try {
+        app.parse(argc, argv);
+    } catch (const CLI::ParseError& e) {
+        return app.exit(e);
+    } catch (const terzo::InputError& e) {
+        std::cerr << e.what() << '\n';
+        return 1;
+    } catch (const std::exception& e) {
+        std::cerr << "terzo: error: " << e.what() << '\n';
+        return 1;
+    }
+    return 0;
+}

@@ -1,0 +1,193 @@
+#include "core/arith/prime_vector.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <numeric>
+
+namespace terzo {
+
+namespace {
+
+__extension__ typedef unsigned __int128 u128;
+
+std::uint64_t mul_mod(std::uint64_t a, std::uint64_t b, std::uint64_t m) {
+    return static_cast<std::uint64_t>(u128(a) * b % m);
+}
+
+std::uint64_t pow_mod(std::uint64_t a, std::uint64_t e, std::uint64_t m) {
+    std::uint64_t r = 1 % m;
+    a %= m;
+    while (e) {
+        if (e & 1) r = mul_mod(r, a, m);
+        a = mul_mod(a, a, m);
+        e >>= 1;
+    }
+    return r;
+}
+
+// Pollard's rho with Brent's cycle detection; n is an odd composite.
+std::uint64_t find_divisor(std::uint64_t n) {
+    for (std::uint64_t c = 1;; ++c) {
+        std::uint64_t x = 2, y = 2, d = 1;
+        auto f = [&](std::uint64_t v) { return (mul_mod(v, v, n) + c) % n; };
+        while (d == 1) {
+            x = f(x);
+            y = f(f(y));
+            d = std::gcd(x > y ? x - y : y - x, n);
+        }
+        if (d != n) return d;
+    }
+}
+
+void factor_into(std::uint64_t n, std::vector<std::uint64_t>& out) {
+    if (n == 1) return;
+    if (is_prime(n)) {
+        out.push_back(n);
+        return;
+    }
+    std::uint64_t d = find_divisor(n);
+    factor_into(d, out);
+    factor_into(n / d, out);
+}
+
+void add_term(std::vector<PrimeVector::Term>& terms, std::uint64_t p, const Ratio& e) {
+    auto it = std::lower_bound(terms.begin(), terms.end(), p,
+                               [](const PrimeVector::Term& t, std::uint64_t q) { return t.first < q; });
+    if (it != terms.end() && it->first == p) {
+        it->second += e;
+        if (it->second.is_zero()) terms.erase(it);
+    } else if (!e.is_zero()) {
+        terms.insert(it, {p, e});
+    }
+}
+
+} // namespace
+
+bool is_prime(std::uint64_t n) {
+    if (n < 2) return false;
+    for (std::uint64_t p : {2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37}) {
+        if (n % p == 0) return n == p;
+    }
+    std::uint64_t d = n - 1;
+    int s = 0;
+    while ((d & 1) == 0) {
+        d >>= 1;
+        ++s;
+    }
+    // These bases decide primality for every n < 2^64 (Sinclair's base set is smaller; the
+    // first twelve primes are the commonly cited safe choice).
+    for (std::uint64_t a : {2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37}) {
+        std::uint64_t x = pow_mod(a, d, n);
+        if (x == 1 || x == n - 1) continue;
+        bool composite = true;
+        for (int r = 1; r < s; ++r) {
+            x = mul_mod(x, x, n);
+            if (x == n - 1) {
+                composite = false;
+                break;
+            }
+        }
+        if (composite) return false;
+    }
+    return true;
+}
+
+std::vector<std::uint64_t> factor(std::uint64_t n) {
+    TERZO_ASSERT(n > 0);
+    std::vector<std::uint64_t> out;
+    for (std::uint64_t p = 2; p < 1000 && p * p <= n; p += (p == 2 ? 1 : 2)) {
+        while (n % p == 0) {
+            out.push_back(p);
+            n /= p;
+        }
+    }
+    factor_into(n, out);
+    std::sort(out.begin(), out.end());
+    return out;
+}
+
+PrimeVector PrimeVector::from_ratio(const Ratio& r) {
+    TERZO_ASSERT(r.sign() > 0 && r.is_small());
+    PrimeVector v;
+    for (std::uint64_t p : factor(static_cast<std::uint64_t>(r.num()))) add_term(v.terms_, p, 1);
+    for (std::uint64_t p : factor(static_cast<std::uint64_t>(r.den()))) add_term(v.terms_, p, -1);
+    return v;
+}
+
+PrimeVector PrimeVector::prime_power(std::uint64_t prime, const Ratio& exponent) {
+    TERZO_ASSERT(is_prime(prime));
+    PrimeVector v;
+    add_term(v.terms_, prime, exponent);
+    return v;
+}
+
+Ratio PrimeVector::exponent(std::uint64_t prime) const {
+    for (const auto& [p, e] : terms_)
+        if (p == prime) return e;
+    return Ratio();
+}
+
+PrimeVector operator*(const PrimeVector& a, const PrimeVector& b) {
+    PrimeVector r = a;
+    for (const auto& [p, e] : b.terms_) add_term(r.terms_, p, e);
+    return r;
+}
+
+PrimeVector operator/(const PrimeVector& a, const PrimeVector& b) {
+    PrimeVector r = a;
+    for (const auto& [p, e] : b.terms_) add_term(r.terms_, p, -e);
+    return r;
+}
+
+PrimeVector PrimeVector::pow(const Ratio& e) const {
+    if (e.is_zero()) return PrimeVector();
+    PrimeVector r = *this;
+    for (auto& term : r.terms_) term.second *= e;
+    return r;
+}
+
+bool PrimeVector::is_rational() const {
+    return std::all_of(terms_.begin(), terms_.end(),
+                       [](const Term& t) { return t.second.is_integer(); });
+}
+
+std::optional<Ratio> PrimeVector::to_ratio() const {
+    if (!is_rational()) return std::nullopt;
+    Ratio::Big num = 1, den = 1;
+    for (const auto& [p, e] : terms_) {
+        // Exponents here are integers; pow of cpp_int needs an unsigned count.
+        Ratio::Big k = e.big_num();
+        bool up = k > 0;
+        if (!up) k = -k;
+        if (k > 100000) return std::nullopt; // beyond any musical use; avoids huge allocations
+        Ratio::Big power = boost::multiprecision::pow(Ratio::Big(p), static_cast<unsigned>(k));
+        (up ? num : den) *= power;
+    }
+    return Ratio::from_big(num, den);
+}
+
+long double PrimeVector::log2() const {
+    long double sum = 0.0L;
+    for (const auto& [p, e] : terms_)
+        sum += e.to_long_double() * std::log2(static_cast<long double>(p));
+    return sum;
+}
+
+double PrimeVector::cents() const { return static_cast<double>(1200.0L * log2()); }
+
+std::string PrimeVector::str() const {
+    if (auto r = to_ratio()) return r->str();
+    std::string out;
+    for (const auto& [p, e] : terms_) {
+        if (!out.empty()) out += '*';
+        out += std::to_string(p);
+        if (e != Ratio(1)) {
+            out += "^(";
+            out += e.is_integer() ? e.big_num().str() : e.str();
+            out += ')';
+        }
+    }
+    return out;
+}
+
+} // namespace terzo

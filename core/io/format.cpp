@@ -1,0 +1,23 @@
+#include "core/io/format.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace terzo {
+
+std::string fixed(double value, int decimals) {
+    char buf[512];
+    std::snprintf(buf, sizeof buf, "%.*f", decimals, value);
+    std::string s = buf;
+    if (s.size() > 1 && s[0] == '-' && s.find_first_not_of("-0.") == std::string::npos)
+        s.erase(0, 1); // "-0.000" reads as a signed zero; print "0.000"
+    return s;
+}
+
+std::string signed_fixed(double value, int decimals) {
+    std::string s = fixed(value, decimals);
+    if (s[0] != '-' && s.find_first_not_of("0.") != std::string::npos) s.insert(0, "+");
+    return s;
+}
+
+} // namespace terzo
