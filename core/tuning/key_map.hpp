@@ -55,6 +55,8 @@ public:
     MappedKey at(int key) const;
 
 private:
+    // Interval of key from the root key: its degree times a whole number of periods.
+    Pitch at_pitch(int key) const;
     // Cents of key above the root key: degree cents plus whole periods.
     double cents_from_root(int key) const;
 
