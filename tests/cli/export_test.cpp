@@ -107,3 +107,47 @@ TEST_CASE("export writes nothing when any output fails its checks", "[export]") 
                               "change\" in dumps and left out of single-note changes: 0-24, 100-127\n") != std::string::npos);
     }
 }
+
+TEST_CASE("export rejects bad options with one message naming the option", "[export]") {
+    const fs::path d = fresh_dir("options");
+    const std::pair<const char*, const char*> cases[] = {
+        {"export meantone.scl", "export: error: no output given; name at least one file with --scl, --mts-bulk, "
+                                "--mts-note, --mts-octave1, --mts-octave2, --mts-octave1-dump, --mts-octave2-dump, "
+                                "--smf or --table\n"},
+        {"export meantone.scl --table t.txt", "--table: error: expected a file name ending in .csv or .json, found \"t.txt\"\n"},
+        {"export meantone.scl --mts-bulk a.syx --mts-note ./a.syx",
+         "--mts-note: error: \"./a.syx\" is also the file of --mts-bulk; give each output its own file (no file was "
+         "written)\n"},
+        {"export meantone.scl --pitch A4=415 --ref-hz 400 --table t.csv",
+         "--ref-hz: error: give either --ref-hz (the root key's frequency) or --pitch (a named note's), not both\n"},
+        {"export meantone.scl --ref-hz 0 --table t.csv",
+         "--ref-hz: error: 0.000000 Hz is outside the accepted range (above 0, at most 20000 Hz)\n"},
+        {"export meantone.scl --pitch H4=440 --table t.csv",
+         "--pitch: error: expected a note letter A to G in \"H4\"\n"},
+        {"export meantone.scl --root-key 128 --table t.csv", "--root-key: error: 128 is outside 0..127\n"},
+        {"export meantone.scl --device -1 --mts-bulk b.syx", "--device: error: -1 is outside 0..127\n"},
+        {"export meantone.scl --program 200 --mts-bulk b.syx", "--program: error: 200 is outside 0..127\n"},
+        {"export meantone.scl --bank 128 --mts-bulk b.syx", "--bank: error: 128 is outside 0..127\n"},
+        {"export meantone.scl --name 12345678901234567 --mts-bulk b.syx",
+         "--name: error: tuning name \"12345678901234567\" has 17 characters; the name field holds at most 16\n"},
+        {"export meantone.scl --non-realtime --mts-note n.syx",
+         "--non-realtime: error: the single-note tuning change without a bank (sub-ID 02) is real-time only; add "
+         "--bank N to write the form with a bank (sub-ID 07)\n"},
+        {"export meantone.scl --channels 0,3 --mts-octave1 o.syx", "--channels: error: channel 0 is outside 1..16\n"},
+        {"export meantone.scl --channels 9-2 --mts-octave1 o.syx", "--channels: error: channel range 9-2 runs backwards\n"},
+        {"export meantone.scl --channels x --mts-octave1 o.syx",
+         "--channels: error: expected channel numbers 1..16 such as 1,2,10 or 1-16, found \"x\"\n"},
+        {"export meantone.scl --mts-bulk missing/b.syx", ""}, // checked below: names the folder
+        {"export nothing.scl --table t.csv", "nothing.scl: error: no such file\n"},
+    };
+    for (auto [args, message] : cases) {
+        INFO(args);
+        Run r = terzo(d, args);
+        CHECK(r.status == 1);
+        CHECK(r.out.empty());
+        if (*message) CHECK(r.err == message);
+        else CHECK(r.err == "missing/b.syx: error: folder " + (d / "missing").string() +
+                                " does not exist (no file was written)\n");
+    }
+    for (const char* f : {"t.csv", "t.txt", "a.syx", "b.syx", "n.syx", "o.syx"}) CHECK_FALSE(fs::exists(d / f));
+}
