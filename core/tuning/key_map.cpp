@@ -6,7 +6,9 @@ namespace terzo {
 
 namespace {
 
-long long floor_div(long long a, long long b) { return a / b - ((a % b != 0) && ((a < 0) != (b < 0))); }
+long long floor_div(long long a, long long b) {
+    return a / b - ((a % b != 0) && ((a < 0) != (b < 0)));
+}
 
 // p^e for an integer e, exact when p is exact.
 Pitch power(const Pitch& p, long long e) {
@@ -19,7 +21,9 @@ Pitch power(const Pitch& p, long long e) {
 
 } // namespace
 
-KeyReference key_reference(const PitchReference& ref) { return {midi_key(ref.note), ref.hz}; }
+KeyReference key_reference(const PitchReference& ref) {
+    return {midi_key(ref.note), ref.hz};
+}
 
 KeyMap::KeyMap(Scale scale, int root_key, KeyReference ref)
     : scale_(std::move(scale)), root_key_(root_key), ref_(ref) {
@@ -43,7 +47,8 @@ Pitch KeyMap::at_pitch(int key) const {
     const long long n = static_cast<long long>(scale_.size());
     const long long steps = key - root_key_;
     const long long count = floor_div(steps, n);
-    return scale_.degree(static_cast<std::size_t>(steps - count * n)) * power(scale_.period(), count);
+    return scale_.degree(static_cast<std::size_t>(steps - count * n)) *
+           power(scale_.period(), count);
 }
 
 MappedKey KeyMap::at(int key) const {
@@ -64,8 +69,9 @@ MappedKey KeyMap::at(int key) const {
     if (m.from_root.is_rational()) {
         const Pitch ref_from_root = at_pitch(ref_.key);
         if (ref_from_root.is_rational())
-            m.hz = static_cast<double>(static_cast<long double>(ref_.hz) *
-                                       (*m.from_root.ratio() / *ref_from_root.ratio()).to_long_double());
+            m.hz = static_cast<double>(
+                static_cast<long double>(ref_.hz) *
+                (*m.from_root.ratio() / *ref_from_root.ratio()).to_long_double());
     }
     m.midi_note = 69.0 + 12.0 * std::log2(ref_.hz / 440.0) + cents_from_ref / 100.0;
     m.cents_from_equal = cents_from_ref - 100.0 * (key - ref_.key);
