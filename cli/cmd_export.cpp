@@ -93,6 +93,11 @@ std::string default_name(const std::string& description) {
     return n.empty() ? "terzo" : n;
 }
 
+// "1 key", "85 keys".
+std::string count_text(std::size_t n, const std::string& word) {
+    return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
+}
+
 std::string as_string(const Bytes& b) {
     return std::string(b.begin(), b.end());
 }
@@ -187,13 +192,14 @@ void run_export(const ExportOptions& o, std::ostream& report) {
             if (!(keys.keys[static_cast<std::size_t>(k)] == mts_no_change))
                 changes.push_back({k, keys.keys[static_cast<std::size_t>(k)]});
         if (changes.empty())
-            fail({"--mts-note", 0, 0}, "no key of this tuning lies in 8.18..13289.66 Hz");
+            fail({"--mts-note", 0, 0}, "no key of this tuning lies in the MIDI Tuning Standard's "
+                                       "8.175799..13289.656616 Hz, so there is nothing to send");
         auto msgs = single_note_tuning_changes(changes, to, with_bank, realtime);
         const std::string what =
             std::string("single-note tuning change (sub-ID ") + (with_bank ? "07" : "02") + ", " +
             kind + "), " + address + (with_bank ? bank_text : "") + ", " +
-            std::to_string(changes.size()) + " keys in " + std::to_string(msgs.size()) +
-            " messages, " + error_text(keys.max_error_cents);
+            count_text(changes.size(), "key") + " in " + count_text(msgs.size(), "message") +
+            ", " + error_text(keys.max_error_cents);
         add_sysex("--mts-note", o.note, msgs, what);
     }
     const bool octave_forms = !o.octave1.empty() || !o.octave2.empty() || !o.octave1_dump.empty() ||
@@ -237,8 +243,8 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     if (!o.smf.empty()) {
         Bytes file = sysex_midi_file(sysex);
         outputs.push_back({"--smf", o.smf, as_string(file),
-                           "Standard MIDI File with " + std::to_string(sysex.size()) +
-                               " SysEx messages, " + bytes_text(file.size())});
+                           "Standard MIDI File with " + count_text(sysex.size(), "SysEx message") +
+                               ", " + bytes_text(file.size())});
     }
     if (!o.table.empty()) {
         std::ostringstream out;

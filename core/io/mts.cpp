@@ -101,7 +101,7 @@ OctaveOffsets octave_offsets(const KeyMap& map, const SourcePos& pos) {
     if (s.size() != 12)
         fail(pos,
              "the scale/octave forms carry 12 notes that repeat every octave; this tuning has " +
-                 std::to_string(s.size()) + " degrees" + use);
+                 std::to_string(s.size()) + (s.size() == 1 ? " degree" : " degrees") + use);
     const Pitch& period = s.period();
     // A cents-only period counts as an octave when it is 1200 c as typed (".scl: 1200.0").
     const bool octave = period.is_rational()

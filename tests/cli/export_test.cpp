@@ -33,6 +33,7 @@ fs::path fresh_dir(const std::string& name) {
         << "! meantone.scl\nQuarter-comma meantone\n12\n76.04900\n193.15686\n310.26471\n"
            "386.31371\n503.42157\n579.47057\n696.57843\n772.62743\n889.73529\n"
            "1006.84314\n1082.89214\n2/1\n";
+    std::ofstream(d / "huge.scl") << "! huge.scl\nhuge\n1\n9999999.0\n";
     std::ofstream(d / "seven.scl") << "! seven.scl\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n";
     return d;
 }
@@ -164,6 +165,14 @@ TEST_CASE("export rejects bad options with one message naming the option", "[exp
          "--channels: error: expected channel numbers 1..16 such as 1,2,10 or 1-16, found \"x\"\n"},
         {"export meantone.scl --mts-bulk missing/b.syx", ""}, // checked below: names the folder
         {"export nothing.scl --table t.csv", "nothing.scl: error: no such file\n"},
+        // One degree and a period of 9999999 cents: key 60 at 1 Hz, every other key beyond
+        // any frequency.
+        {"export huge.scl --ref-hz 1 --table t.csv --mts-note n.syx",
+         "--mts-note: error: no key of this tuning lies in the MIDI Tuning Standard's "
+         "8.175799..13289.656616 Hz, so there is nothing to send\n"},
+        {"export huge.scl --mts-octave1 o.syx",
+         "--mts-octave1: error: the scale/octave forms carry 12 notes that repeat every octave; "
+         "this tuning has 1 degree; use --mts-bulk or --mts-note, which tune every key\n"},
     };
     for (auto [args, message] : cases) {
         INFO(args);
