@@ -22,9 +22,9 @@ struct ExportOptions {
     std::string tuning, scl, bulk, note, octave1, octave2, octave1_dump, octave2_dump, smf, table;
     int root_key = 60;
     double ref_hz = 0;
-    bool ref_hz_given = false;
+    bool ref_hz_given = false, bank_given = false;
     std::string pitch, name, channels;
-    int device = 0x7F, program = 0, bank = -1;
+    int device = 0x7F, program = 0, bank = 0;
     bool force = false, non_realtime = false;
 };
 
@@ -115,7 +115,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     const int root_key = checked_byte(o.root_key, "--root-key");
     const int device = checked_byte(o.device, "--device");
     const int program = checked_byte(o.program, "--program");
-    const bool with_bank = o.bank >= 0;
+    const bool with_bank = o.bank_given;
     const int bank = with_bank ? checked_byte(o.bank, "--bank") : 0;
     if (!o.pitch.empty() && o.ref_hz_given)
         fail({"--ref-hz", 0, 0}, "give either --ref-hz (the root key's frequency) or --pitch (a "
@@ -198,8 +198,8 @@ void run_export(const ExportOptions& o, std::ostream& report) {
         const std::string what =
             std::string("single-note tuning change (sub-ID ") + (with_bank ? "07" : "02") + ", " +
             kind + "), " + address + (with_bank ? bank_text : "") + ", " +
-            count_text(changes.size(), "key") + " in " + count_text(msgs.size(), "message") +
-            ", " + error_text(keys.max_error_cents);
+            count_text(changes.size(), "key") + " in " + count_text(msgs.size(), "message") + ", " +
+            error_text(keys.max_error_cents);
         add_sysex("--mts-note", o.note, msgs, what);
     }
     const bool octave_forms = !o.octave1.empty() || !o.octave2.empty() || !o.octave1_dump.empty() ||
@@ -290,12 +290,12 @@ void run_export(const ExportOptions& o, std::ostream& report) {
         report << "; key " << ref.key << " (" << note_text(note_of_key(ref.key)) << ") sounds at "
                << fixed(ref.hz, 6) << " Hz";
     report << "\n";
-    if (!keys.out_of_range.empty() && any_mts)
-        report << "Keys outside the MIDI Tuning Standard's 8.175799..13289.656616 Hz, sent as \"no "
-                  "change\" "
-                  "in dumps and left out of single-note changes: "
+    if (!keys.out_of_range.empty() && (any_mts || !o.smf.empty()))
+        report << "Keys outside the MIDI Tuning Standard's 8.175799..13289.656616 Hz, sent as "
+                  "\"no change\" in dumps and left out of single-note changes: "
                << key_runs(keys.out_of_range) << "\n";
-    if (any_mts) report << "Name field: \"" << std::string(name.begin(), name.end()) << "\"\n";
+    if (any_mts || !o.smf.empty())
+        report << "Name field: \"" << std::string(name.begin(), name.end()) << "\"\n";
     // A write can still fail (disk full, permissions): remove the files this run created
     // so far, so that either every output is written or none is new.
     std::vector<std::string> created, replaced;
@@ -371,17 +371,18 @@ void add_export(CLI::App& app) {
     cmd->add_option("--program", o->program,
                     "Tuning program 0-127 (default 0; shown to players as 1-128)")
         ->type_name("N");
-    cmd->add_option("--bank", o->bank,
-                    "Tuning bank 0-127: write the forms with a bank (sub-IDs 04, 07)")
-        ->type_name("N");
+    auto* bank = cmd->add_option("--bank", o->bank,
+                                 "Tuning bank 0-127: write the forms with a bank (sub-IDs 04, 07)")
+                     ->type_name("N");
     cmd->add_option("--channels", o->channels,
                     "Channels of the scale/octave forms, such as 1,2,10 or 1-16 (default all)")
         ->type_name("LIST");
     cmd->add_flag("--non-realtime", o->non_realtime,
                   "Send sub-IDs 07, 08 and 09 as non-real-time messages");
     cmd->add_flag("--force", o->force, "Replace files that already exist");
-    cmd->callback([o, ref_hz] {
+    cmd->callback([o, ref_hz, bank] {
         o->ref_hz_given = ref_hz->count() > 0;
+        o->bank_given = bank->count() > 0;
         std::ostringstream report;
         run_export(*o, report);
         std::cout << report.str();

@@ -150,6 +150,7 @@ TEST_CASE("export rejects bad options with one message naming the option", "[exp
          "--program: error: 200 is outside 0..127\n"},
         {"export meantone.scl --bank 128 --mts-bulk b.syx",
          "--bank: error: 128 is outside 0..127\n"},
+        {"export meantone.scl --bank -1 --mts-bulk b.syx", "--bank: error: -1 is outside 0..127\n"},
         {"export meantone.scl --name 12345678901234567 --mts-bulk b.syx",
          "--name: error: tuning name \"12345678901234567\" has 17 characters; the name field holds "
          "at most 16\n"},
