@@ -48,7 +48,8 @@ nlohmann::ordered_json frequency_table_json(const KeyMap& map) {
     return {{"description", map.scale().description()},
             {"size", map.scale().size()},
             {"root_key", map.root_key()},
-            {"reference", {{"key", ref.key}, {"note", note_text(note_of_key(ref.key))}, {"hz", ref.hz}}},
+            {"reference",
+             {{"key", ref.key}, {"note", note_text(note_of_key(ref.key))}, {"hz", ref.hz}}},
             {"keys", std::move(keys)}};
 }
 

@@ -30,7 +30,8 @@ void append_frequency(Bytes& msg, const MtsFrequency& f) {
 }
 
 void append_name(Bytes& msg, const std::array<std::uint8_t, 16>& name) {
-    for (auto c : name) msg.push_back(data_byte(c));
+    for (auto c : name)
+        msg.push_back(data_byte(c));
 }
 
 // Closes a dump: the checksum over everything after F0, then F7.
@@ -47,7 +48,8 @@ void append_channels(Bytes& msg, ChannelSet channels) {
     msg.push_back(static_cast<std::uint8_t>(channels & 0x7F));
 }
 
-const char* const pitch_class_names[12] = {"C", "C#", "D", "Eb", "E", "F", "F#", "G", "G#", "A", "Bb", "B"};
+const char* const pitch_class_names[12] = {"C",  "C#", "D",  "Eb", "E",  "F",
+                                           "F#", "G",  "G#", "A",  "Bb", "B"};
 
 } // namespace
 
@@ -55,10 +57,12 @@ std::optional<MtsFrequency> encode_frequency(double midi_note) {
     if (!std::isfinite(midi_note)) return std::nullopt;
     const double scaled = std::round(midi_note * mts_fraction_steps);
     // 7F 7F 7F is reserved, so the largest value is 127 semitones + 16382 steps.
-    if (scaled < 0 || scaled > 127.0 * mts_fraction_steps + (mts_fraction_steps - 2)) return std::nullopt;
+    if (scaled < 0 || scaled > 127.0 * mts_fraction_steps + (mts_fraction_steps - 2))
+        return std::nullopt;
     const auto v = static_cast<long>(scaled);
     const long semitone = v / mts_fraction_steps, fraction = v % mts_fraction_steps;
-    return MtsFrequency{static_cast<std::uint8_t>(semitone), static_cast<std::uint8_t>(fraction >> 7),
+    return MtsFrequency{static_cast<std::uint8_t>(semitone),
+                        static_cast<std::uint8_t>(fraction >> 7),
                         static_cast<std::uint8_t>(fraction & 0x7F)};
 }
 
@@ -67,9 +71,13 @@ double decode_note(MtsFrequency f) {
     return f.semitone + ((f.msb << 7) | f.lsb) / static_cast<double>(mts_fraction_steps);
 }
 
-double decode_hz(MtsFrequency f) { return 440.0 * std::exp2((decode_note(f) - 69.0) / 12.0); }
+double decode_hz(MtsFrequency f) {
+    return 440.0 * std::exp2((decode_note(f) - 69.0) / 12.0);
+}
 
-double midi_note_of_hz(double hz) { return 69.0 + 12.0 * std::log2(hz / 440.0); }
+double midi_note_of_hz(double hz) {
+    return 69.0 + 12.0 * std::log2(hz / 440.0);
+}
 
 KeyEncoding encode_keys(const KeyMap& map) {
     KeyEncoding e;
@@ -91,17 +99,21 @@ OctaveOffsets octave_offsets(const KeyMap& map, const SourcePos& pos) {
     const Scale& s = map.scale();
     const std::string use = "; use --mts-bulk or --mts-note, which tune every key";
     if (s.size() != 12)
-        fail(pos, "the scale/octave forms carry 12 notes that repeat every octave; this tuning has " +
-                      std::to_string(s.size()) + " degrees" + use);
+        fail(pos,
+             "the scale/octave forms carry 12 notes that repeat every octave; this tuning has " +
+                 std::to_string(s.size()) + (s.size() == 1 ? " degree" : " degrees") + use);
     const Pitch& period = s.period();
     // A cents-only period counts as an octave when it is 1200 c as typed (".scl: 1200.0").
-    const bool octave = period.is_rational() ? *period.ratio() == Ratio(2)
-                                             : !period.is_exact() && std::fabs(period.cents() - 1200.0) < 1e-9;
+    const bool octave = period.is_rational()
+                            ? *period.ratio() == Ratio(2)
+                            : !period.is_exact() && std::fabs(period.cents() - 1200.0) < 1e-9;
     if (!octave)
-        fail(pos, "the scale/octave forms carry 12 notes that repeat every octave; this tuning repeats at " +
+        fail(pos, "the scale/octave forms carry 12 notes that repeat every octave; this tuning "
+                  "repeats at " +
                       period.str() + ", not 2/1" + use);
     OctaveOffsets o{};
-    for (int pc = 0; pc < 12; ++pc) o[static_cast<std::size_t>(pc)] = 100.0 * (map.at(60 + pc).midi_note - (60 + pc));
+    for (int pc = 0; pc < 12; ++pc)
+        o[static_cast<std::size_t>(pc)] = 100.0 * (map.at(60 + pc).midi_note - (60 + pc));
     return o;
 }
 
@@ -112,7 +124,9 @@ std::optional<std::uint8_t> encode_offset_1byte(double cents) {
     return static_cast<std::uint8_t>(v);
 }
 
-double decode_offset_1byte(std::uint8_t b) { return static_cast<double>(b) - 64.0; }
+double decode_offset_1byte(std::uint8_t b) {
+    return static_cast<double>(b) - 64.0;
+}
 
 std::optional<std::uint16_t> encode_offset_2byte(double cents) {
     if (!std::isfinite(cents)) return std::nullopt;
@@ -121,7 +135,9 @@ std::optional<std::uint16_t> encode_offset_2byte(double cents) {
     return static_cast<std::uint16_t>(v);
 }
 
-double decode_offset_2byte(std::uint16_t v) { return (static_cast<double>(v) - 8192.0) * 100.0 / 8192.0; }
+double decode_offset_2byte(std::uint16_t v) {
+    return (static_cast<double>(v) - 8192.0) * 100.0 / 8192.0;
+}
 
 namespace {
 
@@ -132,10 +148,12 @@ EncodedOffsets<T> encode_offsets(const OctaveOffsets& o, const SourcePos& pos, E
     for (std::size_t pc = 0; pc < 12; ++pc) {
         auto v = encode(o[pc]);
         if (!v)
-            fail(pos, std::string("the offset of ") + pitch_class_names[pc] + " from 12-TET at A4 = 440 Hz is " +
-                          signed_fixed(o[pc], 3) + " cents, outside the " + range +
-                          " this form can carry; move the reference pitch nearer to A4 = 440 Hz, or use "
-                          "--mts-bulk or --mts-note");
+            fail(pos,
+                 std::string("the offset of ") + pitch_class_names[pc] +
+                     " from 12-TET at A4 = 440 Hz is " + signed_fixed(o[pc], 3) +
+                     " cents, outside the " + range +
+                     " this form can carry; move the reference pitch nearer to A4 = 440 Hz, or use "
+                     "--mts-bulk or --mts-note");
         e.values[pc] = *v;
         e.max_error_cents = std::max(e.max_error_cents, std::fabs(decode(*v) - o[pc]));
     }
@@ -163,7 +181,8 @@ std::array<std::uint8_t, 16> mts_name(std::string_view name, const SourcePos& po
     for (std::size_t i = 0; i < name.size(); ++i) {
         const auto c = static_cast<unsigned char>(name[i]);
         if (c < 0x20 || c > 0x7E)
-            fail(pos, "tuning name \"" + std::string(name) + "\" has a character that is not printable ASCII at position " +
+            fail(pos, "tuning name \"" + std::string(name) +
+                          "\" has a character that is not printable ASCII at position " +
                           std::to_string(i + 1) + "; the name field holds plain ASCII only");
         out[i] = c;
     }
@@ -173,32 +192,36 @@ std::array<std::uint8_t, 16> mts_name(std::string_view name, const SourcePos& po
 std::uint8_t mts_checksum(const Bytes& msg, std::size_t from, std::size_t to) {
     TERZO_ASSERT(from <= to && to <= msg.size());
     std::uint8_t x = 0;
-    for (std::size_t i = from; i < to; ++i) x ^= msg[i];
+    for (std::size_t i = from; i < to; ++i)
+        x ^= msg[i];
     return x & 0x7F;
 }
 
-Bytes bulk_tuning_dump(const std::array<MtsFrequency, 128>& keys, const std::array<std::uint8_t, 16>& name,
-                       const MtsAddress& to) {
+Bytes bulk_tuning_dump(const std::array<MtsFrequency, 128>& keys,
+                       const std::array<std::uint8_t, 16>& name, const MtsAddress& to) {
     Bytes msg = header(false, to.device, 0x01);
     msg.push_back(data_byte(to.program));
     append_name(msg, name);
-    for (const auto& f : keys) append_frequency(msg, f);
+    for (const auto& f : keys)
+        append_frequency(msg, f);
     return finish_dump(std::move(msg));
 }
 
-Bytes key_based_tuning_dump(const std::array<MtsFrequency, 128>& keys, const std::array<std::uint8_t, 16>& name,
-                            const MtsAddress& to) {
+Bytes key_based_tuning_dump(const std::array<MtsFrequency, 128>& keys,
+                            const std::array<std::uint8_t, 16>& name, const MtsAddress& to) {
     Bytes msg = header(false, to.device, 0x04);
     msg.push_back(data_byte(to.bank));
     msg.push_back(data_byte(to.program));
     append_name(msg, name);
-    for (const auto& f : keys) append_frequency(msg, f);
+    for (const auto& f : keys)
+        append_frequency(msg, f);
     return finish_dump(std::move(msg));
 }
 
-std::vector<Bytes> single_note_tuning_changes(const std::vector<std::pair<int, MtsFrequency>>& changes,
-                                              const MtsAddress& to, bool with_bank, bool realtime,
-                                              std::size_t per_message) {
+std::vector<Bytes>
+single_note_tuning_changes(const std::vector<std::pair<int, MtsFrequency>>& changes,
+                           const MtsAddress& to, bool with_bank, bool realtime,
+                           std::size_t per_message) {
     TERZO_ASSERT(per_message >= 1 && per_message <= 127);
     TERZO_ASSERT(with_bank || realtime); // sub-ID 02 exists only as a real-time message
     std::vector<Bytes> out;
@@ -218,17 +241,18 @@ std::vector<Bytes> single_note_tuning_changes(const std::vector<std::pair<int, M
     return out;
 }
 
-Bytes scale_octave_1byte(const std::array<std::uint8_t, 12>& offsets, ChannelSet channels, int device,
-                         bool realtime) {
+Bytes scale_octave_1byte(const std::array<std::uint8_t, 12>& offsets, ChannelSet channels,
+                         int device, bool realtime) {
     Bytes msg = header(realtime, device, 0x08);
     append_channels(msg, channels);
-    for (auto v : offsets) msg.push_back(data_byte(v));
+    for (auto v : offsets)
+        msg.push_back(data_byte(v));
     msg.push_back(0xF7);
     return msg;
 }
 
-Bytes scale_octave_2byte(const std::array<std::uint16_t, 12>& offsets, ChannelSet channels, int device,
-                         bool realtime) {
+Bytes scale_octave_2byte(const std::array<std::uint16_t, 12>& offsets, ChannelSet channels,
+                         int device, bool realtime) {
     Bytes msg = header(realtime, device, 0x09);
     append_channels(msg, channels);
     for (auto v : offsets) {
@@ -239,18 +263,19 @@ Bytes scale_octave_2byte(const std::array<std::uint16_t, 12>& offsets, ChannelSe
     return msg;
 }
 
-Bytes scale_octave_dump_1byte(const std::array<std::uint8_t, 12>& offsets, const std::array<std::uint8_t, 16>& name,
-                              const MtsAddress& to) {
+Bytes scale_octave_dump_1byte(const std::array<std::uint8_t, 12>& offsets,
+                              const std::array<std::uint8_t, 16>& name, const MtsAddress& to) {
     Bytes msg = header(false, to.device, 0x05);
     msg.push_back(data_byte(to.bank));
     msg.push_back(data_byte(to.program));
     append_name(msg, name);
-    for (auto v : offsets) msg.push_back(data_byte(v));
+    for (auto v : offsets)
+        msg.push_back(data_byte(v));
     return finish_dump(std::move(msg));
 }
 
-Bytes scale_octave_dump_2byte(const std::array<std::uint16_t, 12>& offsets, const std::array<std::uint8_t, 16>& name,
-                              const MtsAddress& to) {
+Bytes scale_octave_dump_2byte(const std::array<std::uint16_t, 12>& offsets,
+                              const std::array<std::uint8_t, 16>& name, const MtsAddress& to) {
     Bytes msg = header(false, to.device, 0x06);
     msg.push_back(data_byte(to.bank));
     msg.push_back(data_byte(to.program));

@@ -104,9 +104,10 @@ Bytes key_based_tuning_dump(const std::array<MtsFrequency, 128>& keys,
 /// Single-note tuning changes for (key, data) pairs, at most 127 per message (the count is
 /// one 7-bit byte): sub-ID 02 (real-time, no bank, 8 + 4n bytes) when bank is false, else
 /// sub-ID 07 (with bank, real-time or not, 9 + 4n bytes).
-std::vector<Bytes> single_note_tuning_changes(const std::vector<std::pair<int, MtsFrequency>>& changes,
-                                              const MtsAddress& to, bool with_bank, bool realtime,
-                                              std::size_t per_message = 64);
+std::vector<Bytes>
+single_note_tuning_changes(const std::vector<std::pair<int, MtsFrequency>>& changes,
+                           const MtsAddress& to, bool with_bank, bool realtime,
+                           std::size_t per_message = 64);
 
 /// Scale/octave tuning 1-byte form, sub-ID 08, 21 bytes; realtime picks 7F or 7E.
 Bytes scale_octave_1byte(const std::array<std::uint8_t, 12>& offsets, ChannelSet channels,

@@ -6,7 +6,9 @@ namespace terzo {
 
 namespace {
 
-long long floor_div(long long a, long long b) { return a / b - ((a % b != 0) && ((a < 0) != (b < 0))); }
+long long floor_div(long long a, long long b) {
+    return a / b - ((a % b != 0) && ((a < 0) != (b < 0)));
+}
 
 // p^e for an integer e, exact when p is exact.
 Pitch power(const Pitch& p, long long e) {
@@ -19,7 +21,9 @@ Pitch power(const Pitch& p, long long e) {
 
 } // namespace
 
-KeyReference key_reference(const PitchReference& ref) { return {midi_key(ref.note), ref.hz}; }
+KeyReference key_reference(const PitchReference& ref) {
+    return {midi_key(ref.note), ref.hz};
+}
 
 KeyMap::KeyMap(Scale scale, int root_key, KeyReference ref)
     : scale_(std::move(scale)), root_key_(root_key), ref_(ref) {
@@ -39,6 +43,14 @@ double KeyMap::cents_from_root(int key) const {
     return scale_.degree(degree).cents() + static_cast<double>(count) * scale_.period().cents();
 }
 
+Pitch KeyMap::at_pitch(int key) const {
+    const long long n = static_cast<long long>(scale_.size());
+    const long long steps = key - root_key_;
+    const long long count = floor_div(steps, n);
+    return scale_.degree(static_cast<std::size_t>(steps - count * n)) *
+           power(scale_.period(), count);
+}
+
 MappedKey KeyMap::at(int key) const {
     const long long n = static_cast<long long>(scale_.size());
     const long long steps = key - root_key_;
@@ -47,11 +59,20 @@ MappedKey KeyMap::at(int key) const {
     m.key = key;
     m.degree = static_cast<int>(steps - count * n);
     m.period_count = static_cast<int>(count);
-    m.from_root = scale_.degree(static_cast<std::size_t>(m.degree)) * power(scale_.period(), count);
+    m.from_root = at_pitch(key);
     // Everything below is measured from the reference key, so a tuning whose reference key
     // is at 440 Hz gets its MIDI note numbers without passing through a frequency.
     const double cents_from_ref = cents_from_root(key) - cents_from_root(ref_.key);
     m.hz = ref_.hz * std::exp2(cents_from_ref / 1200.0);
+    // For a rational tuning the frequency is the reference times an exact ratio: rounded
+    // once, so 264 Hz * 5/2 prints as 660, not 660.0000000000001.
+    if (m.from_root.is_rational()) {
+        const Pitch ref_from_root = at_pitch(ref_.key);
+        if (ref_from_root.is_rational())
+            m.hz = static_cast<double>(
+                static_cast<long double>(ref_.hz) *
+                (*m.from_root.ratio() / *ref_from_root.ratio()).to_long_double());
+    }
     m.midi_note = 69.0 + 12.0 * std::log2(ref_.hz / 440.0) + cents_from_ref / 100.0;
     m.cents_from_equal = cents_from_ref - 100.0 * (key - ref_.key);
     return m;

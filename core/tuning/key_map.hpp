@@ -27,10 +27,10 @@ KeyReference key_reference(const PitchReference& ref);
 /// One key of the map.
 struct MappedKey {
     int key = 0;
-    int degree = 0;        ///< index into the scale, 0 <= degree < size
-    int period_count = 0;  ///< periods above (negative: below) the root key's period
-    Pitch from_root;       ///< interval from the root key: degree * period^period_count
-    double hz = 0;         ///< frequency
+    int degree = 0;       ///< index into the scale, 0 <= degree < size
+    int period_count = 0; ///< periods above (negative: below) the root key's period
+    Pitch from_root;      ///< interval from the root key: degree * period^period_count
+    double hz = 0;        ///< frequency
     /// Fractional MIDI note number of hz in 12-TET at A4 = 440 Hz (69 = 440 Hz, 60 = middle C),
     /// the scale used by the MIDI Tuning Standard. Computed from cents, not from hz, so an
     /// equal-tempered tuning at 440 gives whole numbers to within double rounding.
@@ -40,7 +40,7 @@ struct MappedKey {
 };
 
 class KeyMap {
-public:
+  public:
     /// Lays scale over the keys: root_key (0..127) plays degree 0 and ref fixes the pitch.
     /// root_key and ref.key are checked with TERZO_ASSERT; the CLI checks them first.
     KeyMap(Scale scale, int root_key, KeyReference ref);
@@ -54,7 +54,9 @@ public:
     /// Key key of any integer value (keys outside 0..127 are allowed for computing).
     MappedKey at(int key) const;
 
-private:
+  private:
+    // Interval of key from the root key: its degree times a whole number of periods.
+    Pitch at_pitch(int key) const;
     // Cents of key above the root key: degree cents plus whole periods.
     double cents_from_root(int key) const;
 

@@ -25,17 +25,21 @@ std::string csv(const KeyMap& map) {
 std::string line(const std::string& text, int n) {
     std::istringstream in(text);
     std::string l;
-    for (int i = 0; i <= n; ++i) std::getline(in, l);
+    for (int i = 0; i <= n; ++i)
+        std::getline(in, l);
     if (!l.empty() && l.back() == '\r') l.pop_back(); // CSV rows end in CRLF (RFC 4180)
     return l;
 }
 
 } // namespace
 
-TEST_CASE("the frequency table lists every key of a 12-note tuning with names and ratios", "[frequency_table]") {
+TEST_CASE("the frequency table lists every key of a 12-note tuning with names and ratios",
+          "[frequency_table]") {
     // A just 12-note scale on C4 = 261.6255653 Hz (12-TET C4 at A4 = 440, REFERENCES.md 8).
-    const KeyMap map(scl("! just\njust twelve\n12\n16/15\n9/8\n6/5\n5/4\n4/3\n45/32\n3/2\n8/5\n5/3\n9/5\n15/8\n2/1\n"),
-                     60, {60, 440.0 * std::exp2(-9.0 / 12.0)});
+    const KeyMap map(
+        scl("! just\njust "
+            "twelve\n12\n16/15\n9/8\n6/5\n5/4\n4/3\n45/32\n3/2\n8/5\n5/3\n9/5\n15/8\n2/1\n"),
+        60, {60, 440.0 * std::exp2(-9.0 / 12.0)});
     const std::string text = csv(map);
     CHECK(line(text, 0) == "key,note,degree,period,hz,cents_from_12tet,ratio,mts");
     CHECK(line(text, 128).substr(0, 4) == "127,");
@@ -50,7 +54,8 @@ TEST_CASE("the frequency table lists every key of a 12-note tuning with names an
     CHECK(line(text, 1) == "0,C-1,0,-5,8.175799,0.000000,1/32,00 00 00");
 }
 
-TEST_CASE("the frequency table of a 7-note scale has no note names and marks unsendable keys", "[frequency_table]") {
+TEST_CASE("the frequency table of a 7-note scale has no note names and marks unsendable keys",
+          "[frequency_table]") {
     const KeyMap map(scl("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60, {60, 264.0});
     const std::string text = csv(map);
     // Key 69 is 5/2 above the reference key 60: 264 * 5/2 = 660 Hz, MTS 4C 02 40

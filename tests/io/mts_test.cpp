@@ -51,11 +51,13 @@ Decoded read_message(const Bytes& m) {
     REQUIRE(data() == 0x08); // MIDI Tuning Standard
     d.sub_id = data();
     auto read_name = [&] {
-        for (int k = 0; k < 16; ++k) d.name += static_cast<char>(data());
+        for (int k = 0; k < 16; ++k)
+            d.name += static_cast<char>(data());
     };
     auto read_checksum = [&] {
         int x = 0;
-        for (std::size_t k = 1; k < i; ++k) x ^= m[k];
+        for (std::size_t k = 1; k < i; ++k)
+            x ^= m[k];
         d.checksum_ok = data() == (x & 0x7F);
     };
     auto read_channels = [&] {
@@ -129,7 +131,8 @@ Scale scl(const std::string& text) {
 
 Scale equal_12_exact() {
     std::vector<Pitch> d;
-    for (int k = 1; k <= 11; ++k) d.push_back(Pitch::from_vector(PrimeVector::prime_power(2, Ratio(k, 12))));
+    for (int k = 1; k <= 11; ++k)
+        d.push_back(Pitch::from_vector(PrimeVector::prime_power(2, Ratio(k, 12))));
     return Scale("12-TET", d, Pitch::from_ratio(Ratio(2)));
 }
 
@@ -142,14 +145,21 @@ Scale chain_of_fifths(const PrimeVector& fifth) {
         v = v * PrimeVector::prime_power(2, Ratio(-octaves));
         by_class[static_cast<std::size_t>(((7 * n) % 12 + 12) % 12)] = Pitch::from_vector(v);
     }
-    return Scale("chain", std::vector<Pitch>(by_class.begin() + 1, by_class.end()), Pitch::from_ratio(Ratio(2)));
+    return Scale("chain", std::vector<Pitch>(by_class.begin() + 1, by_class.end()),
+                 Pitch::from_ratio(Ratio(2)));
 }
 
-Scale quarter_comma() { return chain_of_fifths(PrimeVector::prime_power(5, Ratio(1, 4))); }
-Scale pythagorean() { return chain_of_fifths(PrimeVector::from_ratio(Ratio(3, 2))); }
+Scale quarter_comma() {
+    return chain_of_fifths(PrimeVector::prime_power(5, Ratio(1, 4)));
+}
+Scale pythagorean() {
+    return chain_of_fifths(PrimeVector::from_ratio(Ratio(3, 2)));
+}
 
 // 12-TET C4 at A4 = 440: the reference for offsets "with C fixed" (REFERENCES.md 2.4).
-KeyReference c_fixed() { return {60, 440.0 * std::exp2(-9.0 / 12.0)}; }
+KeyReference c_fixed() {
+    return {60, 440.0 * std::exp2(-9.0 / 12.0)};
+}
 
 const SourcePos opt{"--mts-octave1", 0, 0};
 
@@ -164,10 +174,12 @@ TEST_CASE("the specification's frequency-data examples decode to their computed 
         double hz;
     };
     const Row rows[] = {
-        {{0x00, 0x00, 0x00}, 8.175799},    {{0x00, 0x00, 0x01}, 8.175828},    {{0x01, 0x00, 0x00}, 8.661957},
-        {{0x0C, 0x00, 0x00}, 16.351598},   {{0x3C, 0x00, 0x00}, 261.625565},  {{0x3D, 0x00, 0x00}, 277.182631},
-        {{0x44, 0x7F, 0x7F}, 439.998449},  {{0x45, 0x00, 0x00}, 440.000000},  {{0x45, 0x00, 0x01}, 440.001551},
-        {{0x78, 0x00, 0x00}, 8372.018090}, {{0x78, 0x00, 0x01}, 8372.047605}, {{0x7F, 0x00, 0x00}, 12543.853951},
+        {{0x00, 0x00, 0x00}, 8.175799},     {{0x00, 0x00, 0x01}, 8.175828},
+        {{0x01, 0x00, 0x00}, 8.661957},     {{0x0C, 0x00, 0x00}, 16.351598},
+        {{0x3C, 0x00, 0x00}, 261.625565},   {{0x3D, 0x00, 0x00}, 277.182631},
+        {{0x44, 0x7F, 0x7F}, 439.998449},   {{0x45, 0x00, 0x00}, 440.000000},
+        {{0x45, 0x00, 0x01}, 440.001551},   {{0x78, 0x00, 0x00}, 8372.018090},
+        {{0x78, 0x00, 0x01}, 8372.047605},  {{0x7F, 0x00, 0x00}, 12543.853951},
         {{0x7F, 0x00, 0x01}, 12543.898175}, {{0x7F, 0x7F, 0x7E}, 13289.656616},
     };
     for (const Row& r : rows) {
@@ -180,17 +192,24 @@ TEST_CASE("the specification's frequency-data examples decode to their computed 
     }
 }
 
-TEST_CASE("frequencies round to the nearest 1/16384 semitone, carrying into the semitone", "[mts]") {
+TEST_CASE("frequencies round to the nearest 1/16384 semitone, carrying into the semitone",
+          "[mts]") {
     // REFERENCES.md 6.4 constructed encodings [C], "Rounded" column.
     struct Row {
         double hz;
         MtsFrequency f;
     };
     const Row rows[] = {
-        {440.0 * std::exp2(-9.0 / 12.0) * 1.25, {0x3F, 0x6E, 0x3E}}, // 5/4 above 12-TET C4 (truncation: 3D)
-        {660, {0x4C, 0x02, 0x40}}, {415, {0x43, 0x7E, 0x30}}, {432, {0x44, 0x57, 0x2B}},
-        {435, {0x44, 0x66, 0x56}}, {442, {0x45, 0x0A, 0x06}}, {466, {0x45, 0x7F, 0x1C}},
-        {1000, {0x53, 0x1B, 0x23}}, {100, {0x2B, 0x2C, 0x66}},
+        {440.0 * std::exp2(-9.0 / 12.0) * 1.25,
+         {0x3F, 0x6E, 0x3E}}, // 5/4 above 12-TET C4 (truncation: 3D)
+        {660, {0x4C, 0x02, 0x40}},
+        {415, {0x43, 0x7E, 0x30}},
+        {432, {0x44, 0x57, 0x2B}},
+        {435, {0x44, 0x66, 0x56}},
+        {442, {0x45, 0x0A, 0x06}},
+        {466, {0x45, 0x7F, 0x1C}},
+        {1000, {0x53, 0x1B, 0x23}},
+        {100, {0x2B, 0x2C, 0x66}},
     };
     for (const Row& r : rows) {
         INFO(r.hz);
@@ -221,15 +240,20 @@ TEST_CASE("12-TET at A4 = 440 Hz encodes every key as (n, 0, 0)", "[mts]") {
     // MMA MIDI Tuning spec: the first byte is the 12-TET semitone, A4 = 69 = 440 Hz [S].
     SECTION("exact degrees 2^(k/12)") {
         KeyEncoding e = encode_keys(KeyMap(equal_12_exact(), 60, {69, 440.0}));
-        for (int k = 0; k < 128; ++k) CHECK(e.keys[static_cast<std::size_t>(k)] == MtsFrequency{static_cast<std::uint8_t>(k), 0, 0});
+        for (int k = 0; k < 128; ++k)
+            CHECK(e.keys[static_cast<std::size_t>(k)] ==
+                  MtsFrequency{static_cast<std::uint8_t>(k), 0, 0});
         CHECK(e.out_of_range.empty());
         CHECK(e.max_error_cents < 1e-9);
     }
     SECTION("cents typed in a .scl file, root on D") {
-        KeyEncoding e = encode_keys(KeyMap(scl("!\n12\n12\n100.\n200.\n300.\n400.\n500.\n600.\n700.\n800.\n"
-                                               "900.\n1000.\n1100.\n2/1\n"),
-                                           62, {69, 440.0}));
-        for (int k = 0; k < 128; ++k) CHECK(e.keys[static_cast<std::size_t>(k)] == MtsFrequency{static_cast<std::uint8_t>(k), 0, 0});
+        KeyEncoding e =
+            encode_keys(KeyMap(scl("!\n12\n12\n100.\n200.\n300.\n400.\n500.\n600.\n700.\n800.\n"
+                                   "900.\n1000.\n1100.\n2/1\n"),
+                               62, {69, 440.0}));
+        for (int k = 0; k < 128; ++k)
+            CHECK(e.keys[static_cast<std::size_t>(k)] ==
+                  MtsFrequency{static_cast<std::uint8_t>(k), 0, 0});
     }
 }
 
@@ -274,7 +298,8 @@ TEST_CASE("a bulk dump is read back to every key's frequency within the resoluti
         CHECK(std::find(w.out_of_range.begin(), w.out_of_range.end(), 101) != w.out_of_range.end());
         Decoded wd = read_message(bulk_tuning_dump(w.keys, name, {0, 0, 0}));
         CHECK(wd.key_hz.size() == 128 - expected.size()); // 7F 7F 7F = no change
-        for (int k : expected) CHECK(wd.key_hz.count(k) == 0);
+        for (int k : expected)
+            CHECK(wd.key_hz.count(k) == 0);
     }
 }
 
@@ -284,7 +309,8 @@ TEST_CASE("the bulk dump checksum follows the XOR rule of the specification", "[
     // XORed (65 if the 08 byte is left out, as the original wording reads; receivers may
     // ignore this checksum).
     std::array<MtsFrequency, 128> keys;
-    for (int k = 0; k < 128; ++k) keys[static_cast<std::size_t>(k)] = {static_cast<std::uint8_t>(k), 0, 0};
+    for (int k = 0; k < 128; ++k)
+        keys[static_cast<std::size_t>(k)] = {static_cast<std::uint8_t>(k), 0, 0};
     const auto name = mts_name("12-TET A440", {"--name", 0, 0});
     Bytes dump = bulk_tuning_dump(keys, name, {0, 0, 0});
     CHECK(dump[406] == 0x6D);
@@ -318,12 +344,14 @@ TEST_CASE("single-note tuning changes have the specification's layout and length
     SECTION("128 keys go in messages of at most 64 changes, each 8 + 4n bytes long") {
         // With A4 = 440 Pythagorean C-1 lies 5.865 cents below key 0's 8.1758 Hz and
         // cannot be sent; with C fixed every key is in range.
-        CHECK(encode_keys(KeyMap(pythagorean(), 60, {69, 440.0})).out_of_range == std::vector<int>{0});
+        CHECK(encode_keys(KeyMap(pythagorean(), 60, {69, 440.0})).out_of_range ==
+              std::vector<int>{0});
         const KeyMap map(pythagorean(), 60, c_fixed());
         KeyEncoding e = encode_keys(map);
         REQUIRE(e.out_of_range.empty());
         std::vector<std::pair<int, MtsFrequency>> changes;
-        for (int k = 0; k < 128; ++k) changes.push_back({k, e.keys[static_cast<std::size_t>(k)]});
+        for (int k = 0; k < 128; ++k)
+            changes.push_back({k, e.keys[static_cast<std::size_t>(k)]});
         auto msgs = single_note_tuning_changes(changes, {0x7F, 0, 0}, false, true);
         REQUIRE(msgs.size() == 2);
         std::map<int, double> hz;
@@ -338,15 +366,17 @@ TEST_CASE("single-note tuning changes have the specification's layout and length
         for (int k = 0; k < 128; ++k)
             CHECK(std::fabs(1200.0 * std::log2(hz[k] / map.at(k).hz)) <= 100.0 / 16384 / 2 + 1e-9);
         CHECK(single_note_tuning_changes(changes, {0x7F, 0, 0}, false, true, 127).size() == 2);
-        CHECK(single_note_tuning_changes(changes, {0x7F, 0, 0}, false, true, 127)[0].size() == 8 + 4 * 127);
+        CHECK(single_note_tuning_changes(changes, {0x7F, 0, 0}, false, true, 127)[0].size() ==
+              8 + 4 * 127);
     }
 }
 
 TEST_CASE("scale/octave offsets of a 12-note tuning are its cents from 12-TET", "[mts]") {
     // REFERENCES.md 2.4, offsets from 12-TET with C fixed [computed].
-    const double quarter[12] = {0,       -23.951, -6.843, +10.265, -13.686, +3.422,
-                                -20.529, -3.422,  -27.373, -10.265, +6.843, -17.108};
-    const double pyth[12] = {0, +13.685, +3.910, -5.865, +7.820, -1.955, +11.730, +1.955, +15.640, +5.865, -3.910, +9.775};
+    const double quarter[12] = {0,       -23.951, -6.843,  +10.265, -13.686, +3.422,
+                                -20.529, -3.422,  -27.373, -10.265, +6.843,  -17.108};
+    const double pyth[12] = {0,       +13.685, +3.910,  -5.865, +7.820, -1.955,
+                             +11.730, +1.955,  +15.640, +5.865, -3.910, +9.775};
     OctaveOffsets q = octave_offsets(KeyMap(quarter_comma(), 60, c_fixed()), opt);
     OctaveOffsets p = octave_offsets(KeyMap(pythagorean(), 60, c_fixed()), opt);
     for (std::size_t pc = 0; pc < 12; ++pc) {
@@ -355,21 +385,27 @@ TEST_CASE("scale/octave offsets of a 12-note tuning are its cents from 12-TET", 
     }
     SECTION("the root key does not matter for a tuning that repeats at the octave") {
         // The same meantone laid with its degree 0 on key 67 is meantone on G.
-        OctaveOffsets g = octave_offsets(KeyMap(quarter_comma(), 67, {67, 440.0 * std::exp2(-2.0 / 12.0)}), opt);
+        OctaveOffsets g =
+            octave_offsets(KeyMap(quarter_comma(), 67, {67, 440.0 * std::exp2(-2.0 / 12.0)}), opt);
         CHECK_THAT(g[7], WithinAbs(0, 1e-9));
-        CHECK_THAT(g[11], WithinAbs(quarter[4] , 0.0005)); // B over G is E over C
+        CHECK_THAT(g[11], WithinAbs(quarter[4], 0.0005)); // B over G is E over C
     }
     SECTION("other tunings are refused with a reason") {
-        const KeyMap seven(scl("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60, {60, 264.0});
-        REQUIRE_THROWS_WITH(octave_offsets(seven, opt),
-                            "--mts-octave1: error: the scale/octave forms carry 12 notes that repeat every octave; "
-                            "this tuning has 7 degrees; use --mts-bulk or --mts-note, which tune every key");
+        const KeyMap seven(scl("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60,
+                           {60, 264.0});
+        REQUIRE_THROWS_WITH(
+            octave_offsets(seven, opt),
+            "--mts-octave1: error: the scale/octave forms carry 12 notes that repeat every octave; "
+            "this tuning has 7 degrees; use --mts-bulk or --mts-note, which tune every key");
         std::vector<Pitch> d;
-        for (int k = 1; k <= 11; ++k) d.push_back(Pitch::from_vector(PrimeVector::prime_power(3, Ratio(k, 12))));
+        for (int k = 1; k <= 11; ++k)
+            d.push_back(Pitch::from_vector(PrimeVector::prime_power(3, Ratio(k, 12))));
         const KeyMap tritave(Scale("3/1", d, Pitch::from_ratio(Ratio(3))), 60, {69, 440.0});
-        REQUIRE_THROWS_WITH(octave_offsets(tritave, opt),
-                            "--mts-octave1: error: the scale/octave forms carry 12 notes that repeat every octave; "
-                            "this tuning repeats at 3/1, not 2/1; use --mts-bulk or --mts-note, which tune every key");
+        REQUIRE_THROWS_WITH(
+            octave_offsets(tritave, opt),
+            "--mts-octave1: error: the scale/octave forms carry 12 notes that repeat every octave; "
+            "this tuning repeats at 3/1, not 2/1; use --mts-bulk or --mts-note, which tune every "
+            "key");
     }
 }
 
@@ -385,33 +421,40 @@ TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
         CHECK(enc.max_error_cents > 0.3); // C# -23.951 goes to -24
         Decoded d = read_message(msg);
         CHECK(d.channels == 0xFFFF);
-        for (std::size_t pc = 0; pc < 12; ++pc) CHECK(std::fabs(d.offset_cents[pc] - o[pc]) <= 0.5);
+        for (std::size_t pc = 0; pc < 12; ++pc)
+            CHECK(std::fabs(d.offset_cents[pc] - o[pc]) <= 0.5);
     }
     SECTION("2-byte form, real-time, all channels (REFERENCES.md 6.5 [C])") {
         auto enc = encode_offsets_2byte(o, opt);
         Bytes msg = scale_octave_2byte(enc.values, all_channels, 0x7F, true);
         REQUIRE(msg.size() == 33);
-        CHECK(hex_text(msg) == "F0 7F 7F 08 09 03 7F 7F 40 00 30 56 3B 4F 46 49 37 1F 42 18 32 6E 3D 68 2E 3E "
-                               "39 37 44 31 35 07 F7");
+        CHECK(hex_text(msg) ==
+              "F0 7F 7F 08 09 03 7F 7F 40 00 30 56 3B 4F 46 49 37 1F 42 18 32 6E 3D 68 2E 3E "
+              "39 37 44 31 35 07 F7");
         CHECK(enc.max_error_cents <= 100.0 / 8192 / 2 + 1e-12);
         Decoded d = read_message(msg);
-        for (std::size_t pc = 0; pc < 12; ++pc) CHECK(std::fabs(d.offset_cents[pc] - o[pc]) <= 100.0 / 8192 / 2 + 1e-9);
+        for (std::size_t pc = 0; pc < 12; ++pc)
+            CHECK(std::fabs(d.offset_cents[pc] - o[pc]) <= 100.0 / 8192 / 2 + 1e-9);
     }
     SECTION("dumps 05 and 06 with name and checksum (REFERENCES.md 6.6 [C])") {
         const auto name = mts_name("Meantone 1/4 SC", {"--name", 0, 0});
         Bytes d1 = scale_octave_dump_1byte(encode_offsets_1byte(o, opt).values, name, {0, 0, 0});
         REQUIRE(d1.size() == 37);
-        CHECK(hex_text(d1) == "F0 7E 00 08 05 00 00 4D 65 61 6E 74 6F 6E 65 20 31 2F 34 20 53 43 20 40 28 39 4A "
-                              "32 43 2B 3D 25 36 47 2F 59 F7");
+        CHECK(hex_text(d1) ==
+              "F0 7E 00 08 05 00 00 4D 65 61 6E 74 6F 6E 65 20 31 2F 34 20 53 43 20 40 28 39 4A "
+              "32 43 2B 3D 25 36 47 2F 59 F7");
         Bytes d2 = scale_octave_dump_2byte(encode_offsets_2byte(o, opt).values, name, {0, 0, 0});
         REQUIRE(d2.size() == 49);
         CHECK(d2[47] == 0x22);
         CHECK(read_message(d2).checksum_ok);
     }
     SECTION("other tunings of REFERENCES.md 6.5 [C]") {
-        auto one = [](const Scale& s) { return encode_offsets_1byte(octave_offsets(KeyMap(s, 60, c_fixed()), opt), opt).values; };
+        auto one = [](const Scale& s) {
+            return encode_offsets_1byte(octave_offsets(KeyMap(s, 60, c_fixed()), opt), opt).values;
+        };
         auto two = [](const Scale& s) {
-            auto v = encode_offsets_2byte(octave_offsets(KeyMap(s, 60, c_fixed()), opt), opt).values;
+            auto v =
+                encode_offsets_2byte(octave_offsets(KeyMap(s, 60, c_fixed()), opt), opt).values;
             Bytes b;
             for (auto x : v) {
                 b.push_back(static_cast<std::uint8_t>(x >> 7));
@@ -419,9 +462,12 @@ TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
             }
             return hex_text(b);
         };
-        auto hex12 = [](const std::array<std::uint8_t, 12>& v) { return hex_text(Bytes(v.begin(), v.end())); };
+        auto hex12 = [](const std::array<std::uint8_t, 12>& v) {
+            return hex_text(Bytes(v.begin(), v.end()));
+        };
         CHECK(hex12(one(pythagorean())) == "40 4E 44 3A 48 3E 4C 42 50 46 3C 4A");
-        CHECK(two(pythagorean()) == "40 00 48 61 42 40 3C 20 45 01 3E 60 47 41 41 20 4A 01 43 60 3D 40 46 21");
+        CHECK(two(pythagorean()) ==
+              "40 00 48 61 42 40 3C 20 45 01 3E 60 47 41 41 20 4A 01 43 60 3D 40 46 21");
     }
 }
 
@@ -435,10 +481,11 @@ TEST_CASE("scale/octave offset bytes decode to their cents", "[mts]") {
     CHECK(decode_offset_2byte(0) == -100);
     CHECK(decode_offset_2byte(0x40 << 7) == 0);
     CHECK_THAT(decode_offset_2byte(16383), WithinAbs(99.987793, 5e-7));
-    const std::pair<double, std::uint16_t> samples[] = {{1, 0x40 << 7 | 0x52},     {-1, 0x3F << 7 | 0x2E},
-                                                        {13.686, 0x48 << 7 | 0x61}, {-13.686, 0x37 << 7 | 0x1F},
-                                                        {50, 0x60 << 7},            {-50, 0x20 << 7}};
-    for (auto [cents, v] : samples) CHECK(encode_offset_2byte(cents) == v);
+    const std::pair<double, std::uint16_t> samples[] = {
+        {1, 0x40 << 7 | 0x52},       {-1, 0x3F << 7 | 0x2E}, {13.686, 0x48 << 7 | 0x61},
+        {-13.686, 0x37 << 7 | 0x1F}, {50, 0x60 << 7},        {-50, 0x20 << 7}};
+    for (auto [cents, v] : samples)
+        CHECK(encode_offset_2byte(cents) == v);
     CHECK_THAT(decode_offset_2byte(0x40 << 7 | 0x52), WithinAbs(1.000977, 5e-7));
     CHECK(encode_offset_1byte(-64.4) == 0);
     CHECK_FALSE(encode_offset_1byte(-64.6));
@@ -450,17 +497,20 @@ TEST_CASE("scale/octave offset bytes decode to their cents", "[mts]") {
     SECTION("an offset outside the form's range is refused naming the note") {
         // 12-TET at A4 = 415 is -101.271 cents from A4 = 440 (REFERENCES.md 8, computed).
         OctaveOffsets low = octave_offsets(KeyMap(equal_12_exact(), 60, {69, 415.0}), opt);
-        REQUIRE_THROWS_WITH(encode_offsets_2byte(low, {"--mts-octave2", 0, 0}),
-                            "--mts-octave2: error: the offset of C from 12-TET at A4 = 440 Hz is -101.271 cents, "
-                            "outside the -100 .. +99.988 cents this form can carry; move the reference pitch nearer "
-                            "to A4 = 440 Hz, or use --mts-bulk or --mts-note");
+        REQUIRE_THROWS_WITH(
+            encode_offsets_2byte(low, {"--mts-octave2", 0, 0}),
+            "--mts-octave2: error: the offset of C from 12-TET at A4 = 440 Hz is -101.271 cents, "
+            "outside the -100 .. +99.988 cents this form can carry; move the reference pitch "
+            "nearer "
+            "to A4 = 440 Hz, or use --mts-bulk or --mts-note");
         OctaveOffsets third(low);
         third.fill(0);
         third[3] = 70;
-        REQUIRE_THROWS_WITH(encode_offsets_1byte(third, opt),
-                            "--mts-octave1: error: the offset of Eb from 12-TET at A4 = 440 Hz is +70.000 cents, "
-                            "outside the -64 .. +63 cents (rounded to whole cents) this form can carry; move the "
-                            "reference pitch nearer to A4 = 440 Hz, or use --mts-bulk or --mts-note");
+        REQUIRE_THROWS_WITH(
+            encode_offsets_1byte(third, opt),
+            "--mts-octave1: error: the offset of Eb from 12-TET at A4 = 440 Hz is +70.000 cents, "
+            "outside the -64 .. +63 cents (rounded to whole cents) this form can carry; move the "
+            "reference pitch nearer to A4 = 440 Hz, or use --mts-bulk or --mts-note");
     }
 }
 
@@ -482,10 +532,12 @@ TEST_CASE("the name field is 16 printable ASCII characters padded with spaces", 
     const SourcePos pos{"--name", 0, 0};
     auto n = mts_name("abc", pos);
     CHECK(std::string(n.begin(), n.end()) == "abc             ");
-    REQUIRE_THROWS_WITH(mts_name("a name far too long", pos),
-                        "--name: error: tuning name \"a name far too long\" has 19 characters; the name field "
-                        "holds at most 16");
-    REQUIRE_THROWS_WITH(mts_name("caf\xC3\xA9", pos),
-                        "--name: error: tuning name \"caf\xC3\xA9\" has a character that is not printable ASCII at "
-                        "position 4; the name field holds plain ASCII only");
+    REQUIRE_THROWS_WITH(
+        mts_name("a name far too long", pos),
+        "--name: error: tuning name \"a name far too long\" has 19 characters; the name field "
+        "holds at most 16");
+    REQUIRE_THROWS_WITH(
+        mts_name("caf\xC3\xA9", pos),
+        "--name: error: tuning name \"caf\xC3\xA9\" has a character that is not printable ASCII at "
+        "position 4; the name field holds plain ASCII only");
 }

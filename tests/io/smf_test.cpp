@@ -25,8 +25,14 @@ Read read_smf(const Bytes& f) {
         REQUIRE(i < f.size());
         return f[i++];
     };
-    auto u16 = [&] { unsigned a = u8(); return (a << 8) | u8(); };
-    auto u32 = [&] { unsigned long a = u16(); return (a << 16) | u16(); };
+    auto u16 = [&] {
+        unsigned a = u8();
+        return (a << 8) | u8();
+    };
+    auto u32 = [&] {
+        unsigned long a = u16();
+        return (a << 16) | u16();
+    };
     auto vlq = [&] {
         unsigned long v = 0;
         for (int k = 0; k < 4; ++k) {
@@ -54,7 +60,8 @@ Read read_smf(const Bytes& f) {
         if (status == 0xF0) {
             Bytes m = {0xF0};
             unsigned long n = vlq();
-            for (unsigned long k = 0; k < n; ++k) m.push_back(static_cast<std::uint8_t>(u8()));
+            for (unsigned long k = 0; k < n; ++k)
+                m.push_back(static_cast<std::uint8_t>(u8()));
             r.sysex.push_back(m);
             r.deltas.push_back(delta);
         } else if (status == 0xFF) {
@@ -73,9 +80,11 @@ Read read_smf(const Bytes& f) {
 
 TEST_CASE("a MIDI file holds the SysEx messages byte for byte", "[smf]") {
     std::array<MtsFrequency, 128> keys;
-    for (int k = 0; k < 128; ++k) keys[static_cast<std::size_t>(k)] = {static_cast<std::uint8_t>(k), 0, 0};
+    for (int k = 0; k < 128; ++k)
+        keys[static_cast<std::size_t>(k)] = {static_cast<std::uint8_t>(k), 0, 0};
     const Bytes dump = bulk_tuning_dump(keys, mts_name("12-TET A440", {"--name", 0, 0}), {0, 0, 0});
-    const Bytes note = single_note_tuning_changes({{64, {0x3F, 0x6E, 0x3E}}}, {0x7F, 0, 0}, false, true)[0];
+    const Bytes note =
+        single_note_tuning_changes({{64, {0x3F, 0x6E, 0x3E}}}, {0x7F, 0, 0}, false, true)[0];
     const Bytes file = sysex_midi_file({dump, note});
     Read r = read_smf(file);
     CHECK(r.format == 0);
