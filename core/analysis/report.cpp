@@ -19,6 +19,14 @@ std::string note_text(const Note& n) {
     return s;
 }
 
+// Helmholtz level of each pure-tone term of a dyad (0 when the term is not on the ladder).
+int helmholtz_level(const std::vector<HelmholtzTone>& ladder, const Tone& t) {
+    if (t.low_partial != 1 || t.high_partial != 1) return 0;
+    for (const auto& h : ladder)
+        if (h.term == t.term) return h.level;
+    return 0;
+}
+
 json landing_json(const Landing& l) {
     return {{"degree", l.degree},
             {"period", l.period},
@@ -64,7 +72,13 @@ json resultants_json(const ResultantsReport& r) {
     json dyads = json::array();
     for (const auto& d : r.dyads) {
         json tones = json::array();
-        for (const auto& t : d.tones) tones.push_back(tone_json(t));
+        const auto ladder = helmholtz_ladder(d.low.hz, d.high.hz, max_order);
+        for (const auto& t : d.tones) {
+            json j = tone_json(t);
+            int level = helmholtz_level(ladder, t);
+            j["helmholtz_level"] = level ? json(level) : json(nullptr);
+            tones.push_back(std::move(j));
+        }
         dyads.push_back({{"low", note_json(d.low)}, {"high", note_json(d.high)}, {"tones", std::move(tones)}});
     }
     json doc = {{"tuning", r.keyboard->scale().description()},
@@ -113,9 +127,10 @@ Table dyad_table(const DyadTones& dyad, bool with_partials) {
         t.header.push_back("partials");
         t.align.push_back(A::right);
     }
-    for (const char* h : {"Hz", "exact ratio", "lands on", "deviation c", "exact", "audibility"})
+    for (const char* h : {"Hz", "exact ratio", "lands on", "deviation c", "exact", "audibility", "Helmholtz"})
         t.header.push_back(h);
-    for (A a : {A::right, A::left, A::right, A::right, A::left, A::right}) t.align.push_back(a);
+    for (A a : {A::right, A::left, A::right, A::right, A::left, A::right, A::right}) t.align.push_back(a);
+    const auto ladder = helmholtz_ladder(dyad.low.hz, dyad.high.hz, max_order);
     for (const Tone& x : dyad.tones) {
         std::vector<std::string> row = {"(" + std::to_string(x.term.a) + "," + std::to_string(x.term.b) + ")",
                                         x.term.name(), std::to_string(x.term.order())};
@@ -126,6 +141,8 @@ Table dyad_table(const DyadTones& dyad, bool with_partials) {
         row.push_back(signed_fixed(x.landing.deviation_cents, 3));
         row.push_back(x.landing.exact ? "=" : "");
         row.push_back(fixed(x.audibility, 2));
+        int level = helmholtz_level(ladder, x);
+        row.push_back(level ? std::to_string(level) : "");
         t.add(std::move(row));
     }
     return t;
@@ -196,7 +213,9 @@ std::string resultants_text(const ResultantsReport& r) {
            "  with the note exactly (proven with exact arithmetic, never by a tolerance).\n"
            "  exact ratio: tone / reference; '-' when not exact. audibility: a rough estimate in\n"
            "  [0, 1] from published psychoacoustic findings (see the README), not a measurement.\n"
-           "  fit weights each tone by audibility / (order - 1).\n";
+           "  Helmholtz: the tone's place in Helmholtz's ordering of difference tones (1: f_high - f_low,\n"
+           "  2: its difference with a primary, and so on). fit weights each tone by\n"
+           "  audibility / (order - 1).\n";
     return out.str();
 }
 

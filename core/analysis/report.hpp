@@ -34,7 +34,8 @@ std::string exact_text(const Tone& tone);
 /// {"degree", "period", "hz", "ratio"} for one note.
 nlohmann::ordered_json note_json(const Note& note);
 /// {"a", "b", "order", "name", "low_partial", "high_partial", "hz", "ratio", "exact_value",
-///  "landing": {"degree", "period", "deviation_cents", "exact"}, "audibility"}.
+///  "landing": {"degree", "period", "deviation_cents", "exact"}, "audibility"}; the document
+///  adds "helmholtz_level" (its dyad is needed to know it).
 nlohmann::ordered_json tone_json(const Tone& tone);
 /// The whole document (see the README).
 nlohmann::ordered_json resultants_json(const ResultantsReport& report);
