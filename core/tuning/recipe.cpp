@@ -113,8 +113,7 @@ public:
             v = v * 10 + (text_[i_] - '0');
             ++i_;
             if (v > limit)
-                fail_at(col, what + " starting " + in_quotes(text_.substr(static_cast<std::size_t>(col - base_), 24)) +
-                                 " is larger than " + std::to_string(limit));
+                fail_at(col, what + " is larger than " + std::to_string(limit));
         }
         return v;
     }
@@ -369,7 +368,7 @@ private:
 
     int end_column(const std::vector<Token>& words) const {
         const Token& last = words.back();
-        return last.column + static_cast<int>(last.text.size()) + 1;
+        return last.column + static_cast<int>(last.text.size());
     }
 
     static void no_more(const std::vector<Token>& words, std::size_t i, const std::string& usage) {
@@ -523,8 +522,9 @@ private:
             PrimeVector leftover = circle_leftover(circle);
             if (leftover != PrimeVector()) {
                 double c = leftover.cents();
+                PrimeVector excess = c > 0 ? leftover : PrimeVector() / leftover;
                 fail_at(colon.column + 2,
-                        "the 12 fifths do not close the circle: together they are " + leftover.str() + " (" +
+                        "the 12 fifths do not close the circle: together they are " + excess.str() + " (" +
                             fixed(std::fabs(c), 3) + " c) " + (c > 0 ? "wider" : "narrower") +
                             " than 7 octaves; change a fifth, or write wolf for the fifth that takes up "
                             "the difference");
