@@ -64,6 +64,8 @@ Pitch reduce_into_period(const Pitch& p, const Pitch& period) {
     // Floating point proposes the number of periods; exact comparisons settle the edges
     // (a value exactly equal to a power of the period reduces to exactly 1/1).
     auto k = static_cast<std::int64_t>(std::floor(p.cents() / period.cents()));
+    // Well inside the period already: nothing to divide (saves big-number work in long chains).
+    if (k == 0 && p.cents() > 1e-6 && p.cents() < period.cents() - 1e-6) return p;
     Pitch r = exact_quotient(p, exact_power(period, Ratio(k)));
     auto is_unison = [](const Pitch& x) { return exactly_equal(x, Pitch()).value_or(false); };
     if (exactly_equal(r, period).value_or(false)) return Pitch();

@@ -169,8 +169,11 @@ private:
         int col = c_.column();
         char ch = c_.peek();
         if (c_.take('(')) {
+            if (++depth_ > max_depth)
+                fail_at(col, "parentheses nested more than " + std::to_string(max_depth) + " deep");
             Interval v = expr();
             if (!c_.take(')')) fail_at(c_.column(), "expected ')' to close the '(' at column " + std::to_string(col));
+            --depth_;
             return v;
         }
         if (c_.take('P')) return Interval::of(pythagorean_comma());
@@ -228,7 +231,10 @@ private:
         return Ratio(negative ? -num : num, den);
     }
 
+    // Deep nesting would only exhaust the stack; no interval needs more than a few levels.
+    static constexpr int max_depth = 50;
     Cursor c_;
+    int depth_ = 0;
 };
 
 // The tempering of one fifth: "0", "wolf", or signed terms such as -P/4, -1/4S, -s,

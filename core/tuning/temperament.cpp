@@ -1,6 +1,7 @@
 #include "core/tuning/temperament.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <vector>
 
 #include "core/io/scl.hpp"
@@ -35,7 +36,18 @@ Scale generator_chain(const Pitch& generator, int up, int down, const Pitch& per
     TERZO_ASSERT(up >= 0 && down >= 0 &&
                  static_cast<std::size_t>(up) + static_cast<std::size_t>(down) < max_scale_size);
     std::vector<Pitch> pitches;
-    for (int j = -down; j <= up; ++j) pitches.push_back(exact_power(generator, Ratio(j)));
+    auto g = exact_vector(generator), p = exact_vector(period);
+    for (int j = -down; j <= up; ++j) {
+        if (g && p) {
+            // In prime-vector form a power and a period reduction cost no big-number
+            // arithmetic; only the final conversion to a ratio does.
+            PrimeVector v = g->pow(Ratio(j));
+            auto k = static_cast<std::int64_t>(std::floor(v.cents() / p->cents()));
+            pitches.push_back(Pitch::from_vector(v / p->pow(Ratio(k))));
+        } else {
+            pitches.push_back(exact_power(generator, Ratio(j)));
+        }
+    }
     return scale_from_pitch_set(std::move(description), pitches, period);
 }
 

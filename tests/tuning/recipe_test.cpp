@@ -88,6 +88,16 @@ TEST_CASE("a generator chain is period-reduced and sorted", "[recipe]") {
     CHECK(big.is_rational());
 }
 
+TEST_CASE("a long chain of fifths agrees with Python's fractions module", "[recipe]") {
+    // Recomputed with fractions.Fraction: (3/2)^k for k = -50..100, octave-reduced, sorted.
+    Scale s = build_recipe("chain 3/2 up 100 down 50");
+    REQUIRE(s.size() == 151);
+    CHECK(s.degree(75).ratio()->str() == "515377520732011331036461129765621272702107522001/"
+                                         "365375409332725729550921208179070754913983135744");
+    CHECK(s.degree(150).ratio()->str() == "706965049015104706497203195837614914543357369/"
+                                          "356811923176489970264571492362373784095686656");
+}
+
 TEST_CASE("a meantone recipe chooses its chain's first note and length", "[recipe]") {
     Scale s = build_recipe("meantone 1/4 from Ab");
     CHECK(s.description() == "1/4-comma meantone, 12 notes from Ab to C#");
@@ -153,6 +163,9 @@ TEST_CASE("recipes reject bad input with the column of the mistake", "[recipe]")
         CHECK(error_of("list 2 1/2") == "recipe:1:8: error: the period (the last pitch, \"1/2\") must be larger "
                                         "than 1/1");
         CHECK(error_of("list") == "recipe:1:5: error: expected the degrees above 1/1 and last the period");
+        CHECK(error_of("list " + std::string(51, '(') + "2" + std::string(51, ')') + " 2") ==
+              "recipe:1:56: error: parentheses nested more than 50 deep");
+        CHECK(build_recipe("list " + std::string(50, '(') + "2" + std::string(50, ')') + " 4").size() == 2);
     }
     SECTION("equal divisions and chains") {
         CHECK(error_of("equal") == "recipe:1:6: error: expected the number of steps here");
