@@ -45,12 +45,12 @@ int main(int argc, char** argv) {
             auto path = folder / e.file;
             if (std::filesystem::exists(path) && slurp(path) == text) continue;
             if (check) {
-                std::cerr << path.string() << ": differs from its entry on line " << e.line << " of "
-                          << list_path << "\n";
+                std::cerr << path.string() << ": differs from its entry on line " << e.line
+                          << " of " << list_path << "\n";
                 ++differing;
             } else {
-                terzo::write_file_atomically(path, [&](std::ostream& out) { out << text; },
-                                             terzo::Overwrite::allow);
+                terzo::write_file_atomically(
+                    path, [&](std::ostream& out) { out << text; }, terzo::Overwrite::allow);
                 ++written;
             }
         }

@@ -28,7 +28,8 @@ void finish(std::vector<LibraryEntry>& out, LibraryEntry& e, const std::string& 
     if (e.sources.empty()) fail(pos, "the entry for " + e.file + " has no \"source:\" line");
     for (const auto& other : out)
         if (other.file == e.file)
-            fail(pos, e.file + " is listed twice (first on line " + std::to_string(other.line) + ")");
+            fail(pos,
+                 e.file + " is listed twice (first on line " + std::to_string(other.line) + ")");
     try {
         build_recipe(e.recipe);
     } catch (const InputError& err) {
@@ -56,17 +57,20 @@ std::vector<LibraryEntry> read_library_list(std::istream& in, const std::string&
         }
         auto colon = text.find(": ");
         if (colon == std::string::npos)
-            fail({source, number, 1}, "expected \"field: value\" (file, title, recipe, source or names)");
+            fail({source, number, 1},
+                 "expected \"field: value\" (file, title, recipe, source or names)");
         std::string field = text.substr(0, colon), value = text.substr(colon + 2);
         SourcePos pos{source, number, static_cast<int>(colon) + 3};
         if (current.line == 0) current.line = number;
         auto set_once = [&](std::string& slot) {
-            if (!slot.empty()) fail({source, number, 1}, "\"" + field + ":\" is given twice in this entry");
+            if (!slot.empty())
+                fail({source, number, 1}, "\"" + field + ":\" is given twice in this entry");
             slot = value;
         };
         if (field == "file") {
             if (!valid_file_name(value))
-                fail(pos, "file name \"" + value + "\" must be lower-case letters, digits and '-', ending in .scl");
+                fail(pos, "file name \"" + value +
+                              "\" must be lower-case letters, digits and '-', ending in .scl");
             set_once(current.file);
         } else if (field == "title") {
             set_once(current.title);
@@ -77,10 +81,11 @@ std::vector<LibraryEntry> read_library_list(std::istream& in, const std::string&
         } else if (field == "source") {
             current.sources.push_back(value);
         } else if (field == "names") {
-            if (value != "mixed") fail(pos, "names: takes the value mixed");
+            current.spelling = parse_spelling(value, pos);
             current.letter_names = true;
         } else {
-            fail({source, number, 1}, "unknown field \"" + field + "\"; use file, title, recipe, source or names");
+            fail({source, number, 1},
+                 "unknown field \"" + field + "\"; use file, title, recipe, source or names");
         }
     }
     finish(out, current, source);
@@ -99,10 +104,12 @@ std::string library_scl_text(const LibraryEntry& entry) {
     if (entry.letter_names) {
         TERZO_ASSERT(scale.size() == 12);
         comments << "! Degrees 0-11:";
-        for (int pc = 0; pc < 12; ++pc) comments << ' ' << pitch_class_name(pc, Spelling::mixed);
+        for (int pc = 0; pc < 12; ++pc)
+            comments << ' ' << pitch_class_name(pc, entry.spelling);
         comments << "\n";
     }
-    comments << "! Tags: [S] source read, [M] from memory (not re-read), [CP] common practice, no source.\n";
+    comments << "! Tags: [S] source read, [M] from memory (not re-read), [CP] common practice, no "
+                "source.\n";
     comments << "! Computed by terzo from the recipe above; not copied from any scale archive.\n";
 
     std::ostringstream scl;

@@ -7,6 +7,8 @@
 #include <string>
 #include <vector>
 
+#include "core/tuning/note_names.hpp"
+
 namespace terzo {
 
 struct LibraryEntry {
@@ -15,8 +17,9 @@ struct LibraryEntry {
     std::string recipe;               ///< the recipe that builds the tuning
     std::vector<std::string> sources; ///< where the definition is published, one line each
     bool letter_names = false;        ///< add a comment naming the 12 degrees C, C#, D, Eb …
-    int line = 0;                     ///< line of the entry's first field in the list
-    int recipe_line = 0;              ///< where the recipe's text starts in the list
+    Spelling spelling = Spelling::mixed; ///< how those names spell the black keys
+    int line = 0;                        ///< line of the entry's first field in the list
+    int recipe_line = 0;                 ///< where the recipe's text starts in the list
     int recipe_column = 0;
 };
 

@@ -48,7 +48,8 @@ Pitch exact_quotient(const Pitch& a, const Pitch& b) {
 }
 
 Pitch exact_power(const Pitch& p, const Ratio& e) {
-    if (p.is_rational() && e.is_integer() && e.is_small()) return Pitch::from_ratio(p.ratio()->pow(e.num()));
+    if (p.is_rational() && e.is_integer() && e.is_small())
+        return Pitch::from_ratio(p.ratio()->pow(e.num()));
     if (auto v = exact_vector(p)) return Pitch::from_vector(v->pow(e));
     return Pitch::from_cents(p.cents() * static_cast<double>(e.to_long_double()));
 }
@@ -79,7 +80,8 @@ Scale scale_from_pitch_set(std::string description, const std::vector<Pitch>& pi
                            const Pitch& period) {
     std::vector<Pitch> reduced;
     reduced.reserve(pitches.size());
-    for (const Pitch& p : pitches) reduced.push_back(reduce_into_period(p, period));
+    for (const Pitch& p : pitches)
+        reduced.push_back(reduce_into_period(p, period));
     std::stable_sort(reduced.begin(), reduced.end(),
                      [](const Pitch& a, const Pitch& b) { return a.cents() < b.cents(); });
     std::vector<Pitch> unique;

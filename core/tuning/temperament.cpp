@@ -15,19 +15,28 @@ PrimeVector ratio_vector(std::int64_t num, std::int64_t den) {
     return PrimeVector::from_ratio(Ratio(num, den));
 }
 
-PrimeVector pure_fifth() { return ratio_vector(3, 2); }
+PrimeVector pure_fifth() {
+    return ratio_vector(3, 2);
+}
 
 } // namespace
 
-PrimeVector pythagorean_comma() { return ratio_vector(531441, 524288); }
-PrimeVector syntonic_comma() { return ratio_vector(81, 80); }
-PrimeVector schisma() { return ratio_vector(32805, 32768); }
+PrimeVector pythagorean_comma() {
+    return ratio_vector(531441, 524288);
+}
+PrimeVector syntonic_comma() {
+    return ratio_vector(81, 80);
+}
+PrimeVector schisma() {
+    return ratio_vector(32805, 32768);
+}
 
 Scale equal_division(int steps, const Pitch& interval, std::string description) {
     TERZO_ASSERT(steps >= 1 && static_cast<std::size_t>(steps) <= max_scale_size);
     TERZO_ASSERT(interval.cents() > 0);
     std::vector<Pitch> degrees;
-    for (int i = 1; i < steps; ++i) degrees.push_back(exact_power(interval, Ratio(i, steps)));
+    for (int i = 1; i < steps; ++i)
+        degrees.push_back(exact_power(interval, Ratio(i, steps)));
     return Scale(std::move(description), std::move(degrees), interval);
 }
 

@@ -5,8 +5,10 @@
 using namespace terzo;
 
 namespace {
-Ratio r(std::int64_t n, std::int64_t d = 1) { return Ratio(n, d); }
+Ratio r(std::int64_t n, std::int64_t d = 1) {
+    return Ratio(n, d);
 }
+} // namespace
 
 TEST_CASE("a harmonic segment is its harmonics over the lowest one", "[just]") {
     // Harmonics 8..16 over 8 (common practice, no source; ratios checked by hand).
@@ -39,10 +41,11 @@ TEST_CASE("the tonality diamond of 1 3 5 7 has 13 notes", "[just]") {
     // The 7-limit diamond: 13 distinct octave-reduced ratios a/b (recomputed with Python's
     // fractions module: sorted(set(reduce(Fraction(a, b)) for a in S for b in S))).
     Scale s = tonality_diamond({1, 3, 5, 7}, "d");
-    const Ratio expected[13] = {r(1),    r(8, 7),  r(7, 6),  r(6, 5), r(5, 4),   r(4, 3), r(7, 5),
+    const Ratio expected[13] = {r(1),     r(8, 7), r(7, 6), r(6, 5), r(5, 4),  r(4, 3), r(7, 5),
                                 r(10, 7), r(3, 2), r(8, 5), r(5, 3), r(12, 7), r(7, 4)};
     REQUIRE(s.size() == 13);
-    for (std::size_t i = 0; i < 13; ++i) CHECK(*s.degree(i).ratio() == expected[i]);
+    for (std::size_t i = 0; i < 13; ++i)
+        CHECK(*s.degree(i).ratio() == expected[i]);
     // 1 3 5 7 9 11: 29 notes (same Python computation).
     CHECK(tonality_diamond({1, 3, 5, 7, 9, 11}, "d11").size() == 29);
 }
@@ -52,7 +55,8 @@ TEST_CASE("a product set holds every product of k chosen factors", "[just]") {
     Scale s = product_set(2, {1, 3, 5, 7}, "p");
     const Ratio expected[6] = {r(1), r(7, 6), r(5, 4), r(35, 24), r(5, 3), r(7, 4)};
     REQUIRE(s.size() == 6);
-    for (std::size_t i = 0; i < 6; ++i) CHECK(*s.degree(i).ratio() == expected[i]);
+    for (std::size_t i = 0; i < 6; ++i)
+        CHECK(*s.degree(i).ratio() == expected[i]);
     // 3 of 6 factors: C(6,3) = 20 products, all distinct for 1 3 5 7 9 11 (Python check).
     CHECK(product_set(3, {1, 3, 5, 7, 9, 11}, "e").size() == 20);
     // Equal products collapse: 2 of {1, 3, 3}: 3, 3, 9 -> 1/1 and 3 -> 3/2... 9/3 = 3 -> 3/2.

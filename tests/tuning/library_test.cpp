@@ -71,27 +71,38 @@ TEST_CASE("a library file names its source, its recipe and its degrees", "[libra
     e.sources = {"first line", "second line"};
     e.letter_names = true;
     std::string text = library_scl_text(e);
-    CHECK(text.rfind("! x.scl\n! Source: first line\n!         second line\n! Recipe: chain 3/2 up 8 down 3\n"
+    CHECK(text.rfind("! x.scl\n! Source: first line\n!         second line\n! Recipe: chain 3/2 up "
+                     "8 down 3\n"
                      "! Degrees 0-11: C C# D Eb E F F# G G# A Bb B\n! Tags: ",
                      0) == 0);
     CHECK(text.find("!\nPure fifths\n 12\n!\n 2187/2048\n") != std::string::npos);
+    e.spelling = Spelling::flats;
+    CHECK(library_scl_text(e).find("! Degrees 0-11: C Db D Eb E F Gb G Ab A Bb B\n") !=
+          std::string::npos);
 }
 
 TEST_CASE("the library list rejects malformed entries", "[library]") {
     REQUIRE_THROWS_WITH(read_text("file: a.scl\ntitle: t\nrecipe: equal 5\n"),
                         "list.txt:1:1: error: the entry for a.scl has no \"source:\" line");
-    REQUIRE_THROWS_WITH(read_text("file: A.scl\n"),
-                        "list.txt:1:7: error: file name \"A.scl\" must be lower-case letters, digits and '-', "
-                        "ending in .scl");
-    REQUIRE_THROWS_WITH(read_text("colour: red\n"),
-                        "list.txt:1:1: error: unknown field \"colour\"; use file, title, recipe, source or names");
-    REQUIRE_THROWS_WITH(read_text("no colon here\n"),
-                        "list.txt:1:1: error: expected \"field: value\" (file, title, recipe, source or names)");
+    REQUIRE_THROWS_WITH(
+        read_text("file: A.scl\n"),
+        "list.txt:1:7: error: file name \"A.scl\" must be lower-case letters, digits and '-', "
+        "ending in .scl");
+    REQUIRE_THROWS_WITH(
+        read_text("colour: red\n"),
+        "list.txt:1:1: error: unknown field \"colour\"; use file, title, recipe, source or names");
+    REQUIRE_THROWS_WITH(
+        read_text("names: sharp\n"),
+        "list.txt:1:8: error: unknown spelling \"sharp\"; use sharps, flats or mixed");
+    REQUIRE_THROWS_WITH(
+        read_text("no colon here\n"),
+        "list.txt:1:1: error: expected \"field: value\" (file, title, recipe, source or names)");
     REQUIRE_THROWS_WITH(read_text("file: a.scl\nfile: b.scl\n"),
                         "list.txt:2:1: error: \"file:\" is given twice in this entry");
-    REQUIRE_THROWS_WITH(read_text("file: a.scl\ntitle: t\nrecipe: equal 5 of 0\nsource: s\n"),
-                        "list.txt:3:20: error: in the recipe of a.scl: 0 is not an interval; a ratio must "
-                        "be positive");
+    REQUIRE_THROWS_WITH(
+        read_text("file: a.scl\ntitle: t\nrecipe: equal 5 of 0\nsource: s\n"),
+        "list.txt:3:20: error: in the recipe of a.scl: 0 is not an interval; a ratio must "
+        "be positive");
     REQUIRE_THROWS_WITH(read_text("file: a.scl\ntitle: t\nrecipe: equal 5\nsource: s\n\n"
                                   "file: a.scl\ntitle: u\nrecipe: equal 6\nsource: s\n"),
                         "list.txt:6:1: error: a.scl is listed twice (first on line 1)");

@@ -6,9 +6,13 @@
 using namespace terzo;
 
 namespace {
-Pitch p(std::int64_t n, std::int64_t d = 1) { return Pitch::from_ratio(Ratio(n, d)); }
-Scale major() { return Scale("major", {p(9, 8), p(5, 4), p(4, 3), p(3, 2), p(5, 3), p(15, 8)}, p(2)); }
+Pitch p(std::int64_t n, std::int64_t d = 1) {
+    return Pitch::from_ratio(Ratio(n, d));
 }
+Scale major() {
+    return Scale("major", {p(9, 8), p(5, 4), p(4, 3), p(3, 2), p(5, 3), p(15, 8)}, p(2));
+}
+} // namespace
 
 TEST_CASE("a mode starts on another degree and wraps round the period", "[modifiers]") {
     Scale dorian = rotate_to_degree(major(), 1, "d");

@@ -5,8 +5,10 @@
 using namespace terzo;
 
 namespace {
-Pitch p(std::int64_t n, std::int64_t d = 1) { return Pitch::from_ratio(Ratio(n, d)); }
+Pitch p(std::int64_t n, std::int64_t d = 1) {
+    return Pitch::from_ratio(Ratio(n, d));
 }
+} // namespace
 
 TEST_CASE("reducing into the period is exact at the edges", "[pitch_set]") {
     CHECK(*reduce_into_period(p(9, 4), p(2)).ratio() == Ratio(9, 8));

@@ -11,7 +11,9 @@ using namespace terzo;
 
 namespace {
 
-Pitch ratio(std::int64_t n, std::int64_t d) { return Pitch::from_ratio(Ratio(n, d)); }
+Pitch ratio(std::int64_t n, std::int64_t d) {
+    return Pitch::from_ratio(Ratio(n, d));
+}
 
 // One row of REFERENCES.md section 2.3, "Degree cents relative to C", C first.
 using Row = std::array<double, 12>;
@@ -61,41 +63,46 @@ TEST_CASE("meantone fifths are the published sizes", "[temperament]") {
 TEST_CASE("historical temperaments match the degree table of REFERENCES.md 2.3", "[temperament]") {
     // REFERENCES.md 2.3 (computed from the definitions in 2.1; cross-checked there against
     // Barbour 1951's rounded tables [M] and R. Rhodes 2001 for Werckmeister III [S]).
-    check_row("chain 3/2 up 8 down 3", {0.000, 113.685, 203.910, 294.135, 407.820, 498.045, 611.730,
-                                        701.955, 815.640, 905.865, 996.090, 1109.775}); // Pythagorean [CP]
+    check_row("chain 3/2 up 8 down 3",
+              {0.000, 113.685, 203.910, 294.135, 407.820, 498.045, 611.730, 701.955, 815.640,
+               905.865, 996.090, 1109.775}); // Pythagorean [CP]
     check_row("meantone 1/4", {0.000, 76.049, 193.157, 310.265, 386.314, 503.422, 579.471, 696.578,
                                772.627, 889.735, 1006.843, 1082.892}); // Aron 1523 [M]
     check_row("meantone 1/3", {0.000, 63.504, 189.572, 315.641, 379.145, 505.214, 568.717, 694.786,
                                758.290, 884.359, 1010.428, 1073.931}); // Salinas 1577 [M]
     check_row("meantone 2/7", {0.000, 70.672, 191.621, 312.569, 383.241, 504.190, 574.862, 695.810,
                                766.483, 887.431, 1008.379, 1079.052}); // Zarlino 1558 [M]
-    check_row("meantone 1/5", {0.000, 83.576, 195.307, 307.039, 390.615, 502.346, 585.922, 697.654,
-                               781.230, 892.961, 1004.693, 1088.269}); // Verheijen/Stevin [M, uncertain]
-    check_row("meantone 1/6", {0.000, 88.594, 196.741, 304.888, 393.482, 501.629, 590.224, 698.371,
-                               786.965, 895.112, 1003.259, 1091.853}); // Silbermann/Sorge [M, uncertain]
+    check_row("meantone 1/5",
+              {0.000, 83.576, 195.307, 307.039, 390.615, 502.346, 585.922, 697.654, 781.230,
+               892.961, 1004.693, 1088.269}); // Verheijen/Stevin [M, uncertain]
+    check_row("meantone 1/6",
+              {0.000, 88.594, 196.741, 304.888, 393.482, 501.629, 590.224, 698.371, 786.965,
+               895.112, 1003.259, 1091.853}); // Silbermann/Sorge [M, uncertain]
     // Werckmeister III, the standard P/4 reading (REFERENCES.md 2.5 and 9.2).
     check_row("fifths from C: -P/4 -P/4 -P/4 0 0 -P/4 0 0 0 0 0 0",
-              {0.000, 90.225, 192.180, 294.135, 390.225, 498.045, 588.270, 696.090, 792.180, 888.270,
-               996.090, 1092.180});
+              {0.000, 90.225, 192.180, 294.135, 390.225, 498.045, 588.270, 696.090, 792.180,
+               888.270, 996.090, 1092.180});
     // Kirnberger III, S/4 on C-G..A-E and the schisma on F#-C# (Kirnberger's letter [S]; the
     // schisma's place is the standard reading, REFERENCES.md 2.3).
     check_row("fifths from C: -S/4 -S/4 -S/4 -S/4 0 0 -s 0 0 0 0 0",
-              {0.000, 90.225, 193.157, 294.135, 386.314, 498.045, 590.224, 696.578, 792.180, 889.735,
-               996.090, 1088.269});
+              {0.000, 90.225, 193.157, 294.135, 386.314, 498.045, 590.224, 696.578, 792.180,
+               889.735, 996.090, 1088.269});
     // Vallotti 1779 [M]: F-C..E-B each P/6 narrow.
     check_row("fifths from F: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0",
-              {0.000, 94.135, 196.090, 298.045, 392.180, 501.955, 592.180, 698.045, 796.090, 894.135,
-               1000.000, 1090.225});
+              {0.000, 94.135, 196.090, 298.045, 392.180, 501.955, 592.180, 698.045, 796.090,
+               894.135, 1000.000, 1090.225});
     // Young No. 2, Phil. Trans. 1800 (encyclopedia summaries [S]): C-G..B-F# each P/6 narrow.
     check_row("fifths from C: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0",
-              {0.000, 90.225, 196.090, 294.135, 392.180, 498.045, 588.270, 698.045, 792.180, 894.135,
-               996.090, 1090.225});
+              {0.000, 90.225, 196.090, 294.135, 392.180, 498.045, 588.270, 698.045, 792.180,
+               894.135, 996.090, 1090.225});
     check_row("equal 12", {0, 100, 200, 300, 400, 500, 600, 700, 800, 900, 1000, 1100});
-    check_row("fifths from C: -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12",
-              {0, 100, 200, 300, 400, 500, 600, 700, 800, 900, 1000, 1100});
+    check_row(
+        "fifths from C: -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12 -P/12",
+        {0, 100, 200, 300, 400, 500, 600, 700, 800, 900, 1000, 1100});
 }
 
-TEST_CASE("each comma-fraction meantone makes its defining interval exactly pure", "[temperament]") {
+TEST_CASE("each comma-fraction meantone makes its defining interval exactly pure",
+          "[temperament]") {
     // REFERENCES.md 2.2, "Defining property (verified)". Degrees: 3 = Eb, 4 = E, 6 = F#, 11 = B.
     CHECK(exactly_equal(build_recipe("meantone 1/4").degree(4), ratio(5, 4)) == true);
     CHECK(exactly_equal(build_recipe("meantone 1/3").degree(3), ratio(6, 5)) == true);
@@ -114,7 +121,8 @@ TEST_CASE("the wolf of a chain Eb to G# is the published size", "[temperament]")
     auto meantone_wolf = [](const Ratio& k) {
         FifthCircle c;
         c.start_pitch_class = 3;
-        for (int i = 0; i < 11; ++i) c.tempering[static_cast<std::size_t>(i)] = syntonic_comma().pow(-k);
+        for (int i = 0; i < 11; ++i)
+            c.tempering[static_cast<std::size_t>(i)] = syntonic_comma().pow(-k);
         CHECK(wolf_index(c) == 11);
         return circle_fifth(c, 11).cents();
     };
@@ -128,10 +136,12 @@ TEST_CASE("the wolf of a chain Eb to G# is the published size", "[temperament]")
     Scale q = build_recipe("meantone 1/4");
     CHECK(1200.0 + q.degree(3).cents() - q.degree(8).cents() == Approx(737.637287).margin(1e-6));
     // A circle written with a wolf gives the same notes as the chain.
-    Scale w = build_recipe("fifths from Eb: -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 wolf");
+    Scale w =
+        build_recipe("fifths from Eb: -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 wolf");
     CHECK(w.degrees() == q.degrees());
-    CHECK(w.description() == "fifths from Eb: -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 wolf"
-                             " (wolf G#-Eb 737.637 c)");
+    CHECK(w.description() ==
+          "fifths from Eb: -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 -S/4 wolf"
+          " (wolf G#-Eb 737.637 c)");
 }
 
 TEST_CASE("circulating temperaments close the circle exactly", "[temperament]") {
@@ -143,8 +153,10 @@ TEST_CASE("circulating temperaments close the circle exactly", "[temperament]") 
         CHECK_NOTHROW(build_recipe(r));
     }
     FifthCircle w3;
-    for (int i : {0, 1, 2, 5}) w3.tempering[static_cast<std::size_t>(i)] = pythagorean_comma().pow(Ratio(-1, 4));
-    for (int i : {3, 4, 6, 7, 8, 9, 10, 11}) w3.tempering[static_cast<std::size_t>(i)] = PrimeVector();
+    for (int i : {0, 1, 2, 5})
+        w3.tempering[static_cast<std::size_t>(i)] = pythagorean_comma().pow(Ratio(-1, 4));
+    for (int i : {3, 4, 6, 7, 8, 9, 10, 11})
+        w3.tempering[static_cast<std::size_t>(i)] = PrimeVector();
     CHECK(circle_leftover(w3) == PrimeVector());
     CHECK(wolf_index(w3) == std::nullopt);
 }
@@ -152,29 +164,36 @@ TEST_CASE("circulating temperaments close the circle exactly", "[temperament]") 
 TEST_CASE("Werckmeister III read with the syntonic comma leaves a schisma over", "[temperament]") {
     // REFERENCES.md 2.5: "with S/4 the circle does not close (a schisma is left over)".
     FifthCircle c;
-    for (int i = 0; i < 12; ++i) c.tempering[static_cast<std::size_t>(i)] = PrimeVector();
-    for (int i : {0, 1, 2, 5}) c.tempering[static_cast<std::size_t>(i)] = syntonic_comma().pow(Ratio(-1, 4));
+    for (int i = 0; i < 12; ++i)
+        c.tempering[static_cast<std::size_t>(i)] = PrimeVector();
+    for (int i : {0, 1, 2, 5})
+        c.tempering[static_cast<std::size_t>(i)] = syntonic_comma().pow(Ratio(-1, 4));
     CHECK(circle_leftover(c) == schisma());
-    REQUIRE_THROWS_WITH(build_recipe("fifths from C: -S/4 -S/4 -S/4 0 0 -S/4 0 0 0 0 0 0"),
-                        "recipe:1:16: error: the 12 fifths do not close the circle: together they are "
-                        "32805/32768 (1.954 c) wider than 7 octaves; change a fifth, or write wolf for "
-                        "the fifth that takes up the difference");
+    REQUIRE_THROWS_WITH(
+        build_recipe("fifths from C: -S/4 -S/4 -S/4 0 0 -S/4 0 0 0 0 0 0"),
+        "recipe:1:16: error: the 12 fifths do not close the circle: together they are "
+        "32805/32768 (1.954 c) wider than 7 octaves; change a fifth, or write wolf for "
+        "the fifth that takes up the difference");
     // Twelve pure fifths overshoot seven octaves by the Pythagorean comma (REFERENCES.md 1).
-    REQUIRE_THROWS_WITH(build_recipe("fifths: 0 0 0 0 0 0 0 0 0 0 0 0"),
-                        "recipe:1:9: error: the 12 fifths do not close the circle: together they are "
-                        "531441/524288 (23.460 c) wider than 7 octaves; change a fifth, or write wolf "
-                        "for the fifth that takes up the difference");
+    REQUIRE_THROWS_WITH(
+        build_recipe("fifths: 0 0 0 0 0 0 0 0 0 0 0 0"),
+        "recipe:1:9: error: the 12 fifths do not close the circle: together they are "
+        "531441/524288 (23.460 c) wider than 7 octaves; change a fifth, or write wolf "
+        "for the fifth that takes up the difference");
     // Five quarter-comma fifths narrow the circle by P/4 too much: P^(1/4) = 3^3/2^(19/4).
-    REQUIRE_THROWS_WITH(build_recipe("fifths: -P/4 -P/4 -P/4 -P/4 -P/4 0 0 0 0 0 0 0"),
-                        "recipe:1:9: error: the 12 fifths do not close the circle: together they are "
-                        "2^(-19/4)*3^(3) (5.865 c) narrower than 7 octaves; change a fifth, or write wolf "
-                        "for the fifth that takes up the difference");
+    REQUIRE_THROWS_WITH(
+        build_recipe("fifths: -P/4 -P/4 -P/4 -P/4 -P/4 0 0 0 0 0 0 0"),
+        "recipe:1:9: error: the 12 fifths do not close the circle: together they are "
+        "2^(-19/4)*3^(3) (5.865 c) narrower than 7 octaves; change a fifth, or write wolf "
+        "for the fifth that takes up the difference");
 }
 
-TEST_CASE("the other published forms of Kirnberger III give their published degrees", "[temperament]") {
+TEST_CASE("the other published forms of Kirnberger III give their published degrees",
+          "[temperament]") {
     // REFERENCES.md 2.5, rational form in Kirnberger's letter [S transcription]: D 193.190,
     // G 696.603, A 889.744, the rest as the S/4 form.
-    Scale letter = build_recipe("fifths from C: -(324/323) -(323/322) -(321/320) -(322/321) 0 0 -s 0 0 0 0 0");
+    Scale letter =
+        build_recipe("fifths from C: -(324/323) -(323/322) -(321/320) -(322/321) 0 0 -s 0 0 0 0 0");
     CHECK(letter.is_rational());
     CHECK(letter.degree(2).cents() == Approx(193.190).margin(0.0006));
     CHECK(letter.degree(7).cents() == Approx(696.603).margin(0.0006));
@@ -184,8 +203,9 @@ TEST_CASE("the other published forms of Kirnberger III give their published degr
     CHECK(*letter.degree(4).ratio() == Ratio(5, 4));
     // P/12 form, Bellermann 1871 p. 572 via Meister 1991 [S secondary]:
     // C-G 2/12, G-D 2.5/12, D-A 3.5/12, A-E 3/12, F#-C# 1/12 of P.
-    Scale twelfths = build_recipe("fifths from C: -2/12P -5/24P -7/24P -3/12P 0 0 -1/12P 0 0 0 0 0");
-    const double expected[12] = {0.000, 90.225, 195.112, 294.135, 386.315, 498.045,
+    Scale twelfths =
+        build_recipe("fifths from C: -2/12P -5/24P -7/24P -3/12P 0 0 -1/12P 0 0 0 0 0");
+    const double expected[12] = {0.000,   90.225,  195.112, 294.135, 386.315, 498.045,
                                  590.225, 698.045, 792.180, 890.225, 996.090, 1088.270};
     for (std::size_t i = 0; i < 12; ++i) {
         INFO("degree " << i);
@@ -195,12 +215,14 @@ TEST_CASE("the other published forms of Kirnberger III give their published degr
 
 TEST_CASE("Vallotti is Young No. 2 transposed to F", "[temperament]") {
     // REFERENCES.md 2.3: "Vallotti on F = Young on C".
-    Scale young = build_recipe("fifths from C: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0 | transpose F");
+    Scale young =
+        build_recipe("fifths from C: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0 | transpose F");
     Scale vallotti = build_recipe("fifths from F: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0");
     CHECK(young.degrees() == vallotti.degrees());
 }
 
-TEST_CASE("equal divisions have the best fifths and thirds of the reference table", "[temperament]") {
+TEST_CASE("equal divisions have the best fifths and thirds of the reference table",
+          "[temperament]") {
     // REFERENCES.md section 3 (common practice, recomputed there; 19: Barbour ch. VI p. 107
     // [page S, content M]; 31: Huygens 1691 [M]; 53: Mercator/Holder, Bosanquet 1876 [M]).
     struct Case {
@@ -216,7 +238,9 @@ TEST_CASE("equal divisions have the best fifths and thirds of the reference tabl
         auto nearest = [&](double target) {
             std::size_t best = 0;
             for (std::size_t i = 0; i < s.size(); ++i)
-                if (std::abs(s.degree(i).cents() - target) < std::abs(s.degree(best).cents() - target)) best = i;
+                if (std::abs(s.degree(i).cents() - target) <
+                    std::abs(s.degree(best).cents() - target))
+                    best = i;
             return best;
         };
         std::size_t f = nearest(cents(Ratio(3, 2))), t = nearest(cents(Ratio(5, 4)));
