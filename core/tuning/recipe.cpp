@@ -102,7 +102,7 @@ std::string fraction_text(const Ratio& r) {
 // Reads the text of one token character by character, reporting columns inside it.
 class Cursor {
   public:
-    Cursor(const Token& t) : text_(t.text), base_(t.column) {}
+    explicit Cursor(const Token& t) : text_(t.text), base_(t.column) {}
     bool done() const { return i_ >= text_.size(); }
     char peek() const { return done() ? '\0' : text_[i_]; }
     bool take(char c) {
@@ -329,7 +329,7 @@ std::optional<PrimeVector> read_tempering(const Token& t) {
 
 class RecipeReader {
   public:
-    explicit RecipeReader(std::string_view text) : text_(text), tokens_(tokenize(text)) {}
+    explicit RecipeReader(std::string_view text) : tokens_(tokenize(text)) {}
 
     Scale read() {
         if (tokens_.empty())
@@ -351,9 +351,8 @@ class RecipeReader {
         Scale scale = construct(stages[0]);
         for (std::size_t i = 1; i < stages.size(); ++i)
             scale = modify(scale, stages[i]);
-        if (scale.size() > max_scale_size)
-            fail_at(1, "the recipe makes " + std::to_string(scale.size()) + " degrees, more than " +
-                           std::to_string(max_scale_size) + ", the largest scale terzo accepts");
+        // Every construction checks its own size and no modifier adds degrees.
+        TERZO_ASSERT(scale.size() <= max_scale_size);
         return scale;
     }
 
@@ -747,7 +746,6 @@ class RecipeReader {
                                  "; after '|' comes mode, transpose, stretch or subset");
     }
 
-    std::string_view text_;
     std::vector<Token> tokens_;
     std::vector<int> bar_columns_;
 };
