@@ -21,8 +21,9 @@ struct WavFormat {
 /// Text of a sample format as the command line spells it: "int16" or "float32".
 std::string sample_format_name(SampleFormat f);
 
-/// The bytes of a mono WAV file holding the samples (full scale is +-1; int16 samples are
-/// rounded to the nearest step of 1/32767 and values beyond full scale are clipped).
+/// The bytes of a mono WAV file holding the samples. Full scale is +-1; int16 samples are
+/// x * 32768 rounded to the nearest integer and clipped to -32768..32767 (libsndfile's
+/// clipping conversion), float32 samples are stored as they are.
 std::string encode_wav(const std::vector<double>& samples, const WavFormat& format);
 /// Writes the samples as a WAV file through write_file_atomically; throws InputError.
 void write_wav(const std::filesystem::path& path, const std::vector<double>& samples,

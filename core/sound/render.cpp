@@ -39,6 +39,12 @@ std::optional<Model> parse_model(const std::string& name) {
     return std::nullopt;
 }
 
+const char* hearing_caution() {
+    return "Caution: combination tones are heard best loud, and loud sound damages hearing. "
+           "Start playback at a low volume, raise it slowly, keep it moderate, and stop if "
+           "the sound is uncomfortable.";
+}
+
 double highest_partial_hz(int sample_rate) { return sample_rate / 6.0; }
 
 void check_render_settings(const RenderSettings& s, std::size_t note_count) {
@@ -87,8 +93,8 @@ std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>&
     return out;
 }
 
-// The chain: notes -> sum of partials (peak at most 1) -> envelope -> model -> envelope
-// again -> peak cap. The first envelope shapes the notes the model hears; the second makes
+// The chain: notes -> sum of partials (peak at most 1) -> envelope -> model -> DC removal
+// -> envelope again -> peak cap. The first envelope shapes the notes the model hears; the second makes
 // the output start and end in silence whatever the model does (the oscillator rings on
 // after its input stops). The drive into a model is fixed: every note's partials together
 // reach 1 / (number of notes), so the dry mix never exceeds full scale.
@@ -113,6 +119,7 @@ std::vector<double> render(const Scale& scale, const std::vector<int>& notes, co
     case Model::poly: apply_polynomial(out, s.polynomial); break;
     case Model::oscillator: out = drive_oscillator(out, s.oscillator, s.sample_rate); break;
     }
+    remove_dc(out, s.sample_rate);
     apply_envelope(out, s.envelope, s.sample_rate);
     scale_to_peak(out, s.peak_dbfs);
     return out;

@@ -60,6 +60,9 @@ inline constexpr double min_q = 0.5, max_q = 20.0;
 /// nothing aliases.
 double highest_partial_hz(int sample_rate);
 
+/// The short hearing-safety caution every front end shows beside rendered or played sound.
+const char* hearing_caution();
+
 /// Throws InputError naming the option ("--seconds", ...) of the first setting out of range.
 void check_render_settings(const RenderSettings& s, std::size_t note_count);
 /// Frequency of each note: degree n of the scale, n >= size() continuing into the next
