@@ -38,6 +38,8 @@ std::string model_details(const RenderSettings& s) {
     if (s.model == Model::oscillator)
         o << " (resonance " << s.oscillator.resonance_hz << " Hz, Q " << s.oscillator.q << ", c2 "
           << s.oscillator.c2 << ", c3 " << s.oscillator.c3 << ")";
+    if (s.model == Model::predicted)
+        o << " (tones of order 2.." << s.predicted_order << " at " << s.predicted_db << " dB x audibility)";
     return o.str();
 }
 
@@ -59,7 +61,7 @@ void add_render(CLI::App& app) {
                                          "one period up, -1 the top degree one period down)")->required();
     cmd->add_option("--ref-hz", o->s.ref_hz, "Frequency of degree 0 in Hz (16..4000)")->capture_default_str();
     cmd->add_option("--seconds", o->s.seconds, "Duration (0.1..60)")->capture_default_str();
-    cmd->add_option("--model", o->model, "none | poly | oscillator")->capture_default_str();
+    cmd->add_option("--model", o->model, "none | poly | oscillator | predicted")->capture_default_str();
     cmd->add_option("--sample-rate", o->s.sample_rate, "44100 or 48000")->capture_default_str();
     cmd->add_option("--sample-format", o->sample_format, "int16 or float32")->capture_default_str();
     cmd->add_option("--partials", o->s.timbre.partials, "Harmonics per note, 1 = sine (1..64)")->capture_default_str();
@@ -73,12 +75,17 @@ void add_render(CLI::App& app) {
     cmd->add_option("--attack", o->s.envelope.attack_s, "Fade-in in seconds (0.005..10)")->capture_default_str();
     cmd->add_option("--release", o->s.envelope.release_s, "Fade-out in seconds (0.005..10)")->capture_default_str();
     cmd->add_option("--peak-db", o->s.peak_dbfs, "Peak level in dBFS (-60..-6)")->capture_default_str();
+    cmd->add_option("--predicted-db", o->s.predicted_db,
+                    "predicted: level of each predicted tone relative to a note, before its audibility "
+                    "weight (-60..0)")->capture_default_str();
+    cmd->add_option("--order", o->s.predicted_order, "predicted: highest order of the tones added (2..6)")
+        ->capture_default_str();
     cmd->add_option("--out", o->out, "The WAV file to write")->required();
     cmd->add_flag("--force", o->force, "Replace the file if it exists");
     cmd->callback([o] {
         RenderSettings s = o->s;
         auto model = parse_model(o->model);
-        if (!model) fail({"--model", 0, 0}, "\"" + o->model + "\" is not a model; use none, poly or oscillator");
+        if (!model) fail({"--model", 0, 0}, "\"" + o->model + "\" is not a model; use none, poly, oscillator or predicted");
         s.model = *model;
         if (o->c2) s.polynomial.c2 = s.oscillator.c2 = *o->c2;
         if (o->c3) s.polynomial.c3 = s.oscillator.c3 = *o->c3;

@@ -3,6 +3,7 @@
 #include <cmath>
 #include <sstream>
 
+#include "core/analysis/chord.hpp"
 #include "core/error.hpp"
 #include "core/sound/level.hpp"
 
@@ -29,12 +30,13 @@ std::string model_name(Model m) {
     case Model::none: return "none";
     case Model::poly: return "poly";
     case Model::oscillator: return "oscillator";
+    case Model::predicted: return "predicted";
     }
     return "none";
 }
 
 std::optional<Model> parse_model(const std::string& name) {
-    for (Model m : {Model::none, Model::poly, Model::oscillator})
+    for (Model m : {Model::none, Model::poly, Model::oscillator, Model::predicted})
         if (model_name(m) == name) return m;
     return std::nullopt;
 }
@@ -79,6 +81,14 @@ void check_render_settings(const RenderSettings& s, std::size_t note_count) {
                     "the resonance in Hz");
         check_range("--q", s.oscillator.q, L::min_q, L::max_q, "the quality factor Q");
     }
+    if (s.model == Model::predicted) {
+        check_range("--predicted-db", s.predicted_db, L::min_predicted_db, L::max_predicted_db,
+                    "the level of predicted tones in dB");
+        if (s.predicted_order < 2 || s.predicted_order > L::max_predicted_order)
+            fail({"--order", 0, 0}, std::to_string(s.predicted_order) +
+                                        " is out of range; the order of predicted tones must be between 2 and " +
+                                        std::to_string(L::max_predicted_order));
+    }
 }
 
 std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>& notes, double ref_hz) {
@@ -90,6 +100,30 @@ std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>&
         const double cents = double(period) * scale.period().cents() + scale.degree(std::size_t(degree)).cents();
         out.push_back(ref_hz * std::exp2(cents / 1200.0));
     }
+    return out;
+}
+
+std::vector<Partial> predicted_partials(const Scale& scale, const std::vector<int>& notes,
+                                        const RenderSettings& s, double note_amplitude) {
+    const Keyboard kb(scale, s.ref_hz, 1);
+    const long long size = static_cast<long long>(scale.size());
+    std::vector<Note> chord;
+    for (int n : notes) {
+        long long period = n / size, degree = n % size;
+        if (degree < 0) degree += size, --period;
+        chord.push_back(kb.note(int(degree), int(period)));
+    }
+    ToneOptions options;
+    options.order = s.predicted_order;
+    options.partials = 1;
+    options.exact = false; // only frequencies are needed here
+    const double level = note_amplitude * std::pow(10.0, s.predicted_db / 20.0);
+    const double top = highest_partial_hz(s.sample_rate);
+    std::vector<Partial> out;
+    for (const DyadTones& dyad : chord_tones(kb, chord, options))
+        for (const Tone& t : dyad.tones)
+            if (t.hz >= render_limits::min_note_hz && t.hz <= top && t.audibility > 0.0)
+                out.push_back({t.hz, level * t.audibility});
     return out;
 }
 
@@ -112,10 +146,16 @@ std::vector<double> render(const Scale& scale, const std::vector<int>& notes, co
     const double note_amplitude = 1.0 / (double(hz.size()) * harmonics_sum);
 
     const auto frames = static_cast<std::size_t>(std::llround(s.seconds * s.sample_rate));
-    std::vector<double> out = synthesize(harmonic_partials(hz, note_amplitude, s.timbre, top), frames, s.sample_rate);
+    std::vector<Partial> partials = harmonic_partials(hz, note_amplitude, s.timbre, top);
+    if (s.model == Model::predicted) {
+        const auto extra = predicted_partials(scale, notes, s, note_amplitude);
+        partials.insert(partials.end(), extra.begin(), extra.end());
+    }
+    std::vector<double> out = synthesize(partials, frames, s.sample_rate);
     apply_envelope(out, s.envelope, s.sample_rate);
     switch (s.model) {
-    case Model::none: break;
+    case Model::none:
+    case Model::predicted: break;
     case Model::poly: apply_polynomial(out, s.polynomial); break;
     case Model::oscillator: out = drive_oscillator(out, s.oscillator, s.sample_rate); break;
     }

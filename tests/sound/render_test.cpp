@@ -10,9 +10,11 @@
 #include <unistd.h>
 
 #include "core/arith/pitch.hpp"
+#include "core/analysis/audibility.hpp"
 #include "core/error.hpp"
 #include "core/sound/level.hpp"
 #include "core/sound/render.hpp"
+#include "tests/sound/spectrum.hpp"
 
 using namespace terzo;
 namespace fs = std::filesystem;
@@ -75,7 +77,7 @@ TEST_CASE("note numbers continue into the periods above and below", "[render]") 
 }
 
 TEST_CASE("every render peaks exactly at the cap and starts and ends in silence", "[render]") {
-    for (Model m : {Model::none, Model::poly, Model::oscillator}) {
+    for (Model m : {Model::none, Model::poly, Model::oscillator, Model::predicted}) {
         RenderSettings s = short_settings(m);
         s.timbre.partials = 8;
         for (double cap : {-12.0, -30.0}) {
@@ -215,11 +217,45 @@ TEST_CASE("render settings out of range are rejected with the option's name", "[
                 "--q: error: 30 is out of range; the quality factor Q must be between 0.5 and 20");
         rejects([](RenderSettings& s) { s.model = Model::oscillator, s.oscillator.resonance_hz = 9000; },
                 "--resonance-hz: error: 9000 is out of range; the resonance in Hz must be between 50 and 8000");
+        rejects([](RenderSettings& s) { s.model = Model::predicted, s.predicted_db = 3; },
+                "--predicted-db: error: 3 is out of range; the level of predicted tones in dB must be between -60 and 0");
+        rejects([](RenderSettings& s) { s.model = Model::predicted, s.predicted_order = 7; },
+                "--order: error: 7 is out of range; the order of predicted tones must be between 2 and 6");
+        RenderSettings ok = short_settings(Model::predicted);
+        ok.predicted_order = 6;
+        CHECK_NOTHROW(render(sc, std::vector<int>{0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 0}, ok));
     }
 }
 
+TEST_CASE("the predicted model adds the engine's tones of a dyad at their stated levels", "[render]") {
+    // 400 and 500 Hz on exact bins of a one-second rectangular window inside the steady part
+    // of a 3 s render, measured with FFTW3. Expected frequencies a f1 + b f2 are computed here
+    // independently; expected levels are predicted_db below a note times the engine's
+    // audibility estimate, relative to the measured note level.
+    const Scale sc("third", {Pitch::from_ratio(Ratio(5, 4))}, Pitch::from_ratio(Ratio(2)));
+    RenderSettings s;
+    s.ref_hz = 400;
+    s.seconds = 3;
+    s.model = Model::predicted;
+    s.predicted_db = -20;
+    const auto y = render(sc, {0, 1}, s);
+    const auto spec = terzo::test::amplitude_spectrum(std::vector<double>(y.begin() + 48000, y.begin() + 96000), 48000);
+    const double note = spec.at(400);
+    CHECK(spec.at(500) == Approx(note).epsilon(1e-3));
+    struct Line { int a, b; };
+    for (Line l : {Line{-1, 1}, Line{1, 1}, Line{2, -1}, Line{-1, 2}, Line{2, 1}, Line{1, 2}}) {
+        const double f = l.a * 400.0 + l.b * 500.0;
+        const double expected = 0.1 * audibility(CombinationTerm{l.a, l.b}, 400, 500);
+        INFO(l.a << " f1 + " << l.b << " f2 = " << f << " Hz");
+        CHECK(std::abs(terzo::test::db(spec.at(f) / note / expected)) < 0.5);
+    }
+    CHECK(spec.at(300) / note == Approx(0.1 * (1.5 - 1.25) / 0.3).epsilon(0.01)); // 2f1-f2 at ratio 5/4
+    CHECK(spec.at(200) < 1e-6 * note); // 2 f1 is no combination tone and nothing adds it
+}
+
 TEST_CASE("model names read and print the same way", "[render]") {
-    for (Model m : {Model::none, Model::poly, Model::oscillator}) CHECK(parse_model(model_name(m)) == m);
+    for (Model m : {Model::none, Model::poly, Model::oscillator, Model::predicted})
+        CHECK(parse_model(model_name(m)) == m);
     CHECK_FALSE(parse_model("Poly").has_value());
 }
 
@@ -274,7 +310,7 @@ TEST_CASE("terzo render writes a WAV file, refuses to overwrite it and names bad
                                  "by commas, such as 0,4,7");
         rejects("--notes 0,1234567", "--notes: error: \"1234567\" is not a degree number; write whole numbers "
                                      "separated by commas, such as 0,4,7");
-        rejects("--notes 0 --model loud", "--model: error: \"loud\" is not a model; use none, poly or oscillator");
+        rejects("--notes 0 --model loud", "--model: error: \"loud\" is not a model; use none, poly, oscillator or predicted");
         rejects("--notes 0 --sample-format int24",
                 "--sample-format: error: \"int24\" is not a sample format; use int16 or float32");
         rejects("--notes 0 --seconds 61",
