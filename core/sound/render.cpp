@@ -1,5 +1,6 @@
 #include "core/sound/render.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <sstream>
 
@@ -124,6 +125,13 @@ std::vector<Partial> predicted_partials(const Scale& scale, const std::vector<in
         for (const Tone& t : dyad.tones)
             if (t.hz >= render_limits::min_note_hz && t.hz <= top && t.audibility > 0.0)
                 out.push_back({t.hz, level * t.audibility});
+    if (out.size() > render_limits::max_predicted_tones) {
+        auto louder = [](const Partial& x, const Partial& y) {
+            return x.amplitude != y.amplitude ? x.amplitude > y.amplitude : x.frequency_hz < y.frequency_hz;
+        };
+        std::partial_sort(out.begin(), out.begin() + render_limits::max_predicted_tones, out.end(), louder);
+        out.resize(render_limits::max_predicted_tones);
+    }
     return out;
 }
 

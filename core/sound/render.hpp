@@ -58,7 +58,10 @@ inline constexpr double max_rolloff_db = 40.0;
 inline constexpr double max_coefficient = 1.0; ///< |c2| and |c3|, both models
 inline constexpr double min_resonance_hz = 50.0, max_resonance_hz = 8000.0;
 inline constexpr double min_predicted_db = -60.0, max_predicted_db = 0.0;
-inline constexpr int max_predicted_order = 6; ///< keeps a 16-note chord to a few hundred tones
+inline constexpr int max_predicted_order = 6;
+/// predicted: at most this many tones are added, the loudest ones (keeps the worst case,
+/// 16 notes at order 6 for 60 s, to a few seconds of work)
+inline constexpr std::size_t max_predicted_tones = 512;
 inline constexpr double min_q = 0.5, max_q = 20.0;
 } // namespace render_limits
 
@@ -78,7 +81,8 @@ std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>&
 /// The predicted combination tones of every pair of the notes (pure tones, orders
 /// 2..s.predicted_order, from the resultant engine) as sine partials: each at
 /// note_amplitude * 10^(predicted_db / 20) * the engine's audibility estimate, those outside
-/// 20 Hz .. highest_partial_hz left out.
+/// 20 Hz .. highest_partial_hz left out; only the render_limits::max_predicted_tones loudest
+/// are kept (ties broken by frequency).
 std::vector<Partial> predicted_partials(const Scale& scale, const std::vector<int>& notes,
                                         const RenderSettings& s, double note_amplitude);
 /// The rendered mono samples, peaking at s.peak_dbfs. Throws InputError (source "--notes")

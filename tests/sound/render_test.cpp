@@ -2,6 +2,7 @@
 // `terzo render` end to end (the written file checked by sox, an independent reader).
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <filesystem>
@@ -251,6 +252,31 @@ TEST_CASE("the predicted model adds the engine's tones of a dyad at their stated
     }
     CHECK(spec.at(300) / note == Approx(0.1 * (1.5 - 1.25) / 0.3).epsilon(0.01)); // 2f1-f2 at ratio 5/4
     CHECK(spec.at(200) < 1e-6 * note); // 2 f1 is no combination tone and nothing adds it
+}
+
+TEST_CASE("the predicted model adds at most 512 tones, the loudest", "[render]") {
+    std::vector<Pitch> cents;
+    for (int i = 1; i < 12; ++i) cents.push_back(Pitch::from_cents(100.0 * i));
+    const Scale twelve("twelve", cents, Pitch::from_ratio(Ratio(2)));
+    const std::vector<int> notes{0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12, 13, 14, 15};
+    RenderSettings s;
+    s.model = Model::predicted;
+    s.predicted_order = 6;
+    const auto all = predicted_partials(twelve, notes, s, 1.0);
+    REQUIRE(all.size() == render_limits::max_predicted_tones);
+    s.predicted_order = 2; // fewer candidates: every tone in range is kept
+    const auto second = predicted_partials(twelve, notes, s, 1.0);
+    CHECK(second.size() < render_limits::max_predicted_tones);
+    // Order 2 gives difference tones (audibility estimate 0.5) and summation tones (0.1);
+    // the order-6 candidates also hold hundreds of tones at the engine's 0.05 floor or below,
+    // so keeping the loudest 512 must keep every order-2 tone.
+    for (const Partial& p : second) {
+        const bool kept = std::any_of(all.begin(), all.end(), [&](const Partial& q) {
+            return q.frequency_hz == p.frequency_hz && q.amplitude == p.amplitude;
+        });
+        INFO(p.frequency_hz << " Hz");
+        CHECK(kept);
+    }
 }
 
 TEST_CASE("model names read and print the same way", "[render]") {
