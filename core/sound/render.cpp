@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <sstream>
+#include <utility>
 
 #include "core/analysis/chord.hpp"
 #include "core/error.hpp"
@@ -22,6 +23,14 @@ void check_range(const char* option, double value, double lo, double hi, const s
     if (!(value >= lo && value <= hi))
         fail({option, 0, 0}, num(value) + " is out of range; " + what + " must be between " +
                                  num(lo) + " and " + num(hi));
+}
+
+// Note number n as (degree, period): floor division, so -1 is the top degree one period down.
+std::pair<long long, long long> degree_and_period(int n, std::size_t scale_size) {
+    const long long size = static_cast<long long>(scale_size);
+    long long period = n / size, degree = n % size;
+    if (degree < 0) degree += size, --period;
+    return {degree, period};
 }
 
 } // namespace
@@ -93,11 +102,9 @@ void check_render_settings(const RenderSettings& s, std::size_t note_count) {
 }
 
 std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>& notes, double ref_hz) {
-    const long long size = static_cast<long long>(scale.size());
     std::vector<double> out;
     for (int n : notes) {
-        long long period = n / size, degree = n % size;
-        if (degree < 0) degree += size, --period; // floor division
+        const auto [degree, period] = degree_and_period(n, scale.size());
         const double cents = double(period) * scale.period().cents() + scale.degree(std::size_t(degree)).cents();
         out.push_back(ref_hz * std::exp2(cents / 1200.0));
     }
@@ -106,12 +113,12 @@ std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>&
 
 std::vector<Partial> predicted_partials(const Scale& scale, const std::vector<int>& notes,
                                         const RenderSettings& s, double note_amplitude) {
+    // The resultant engine's notes are exact where the scale is; render() has already
+    // checked every note's frequency, so the periods here are few.
     const Keyboard kb(scale, s.ref_hz, 1);
-    const long long size = static_cast<long long>(scale.size());
     std::vector<Note> chord;
     for (int n : notes) {
-        long long period = n / size, degree = n % size;
-        if (degree < 0) degree += size, --period;
+        const auto [degree, period] = degree_and_period(n, scale.size());
         chord.push_back(kb.note(int(degree), int(period)));
     }
     ToneOptions options;
@@ -136,9 +143,10 @@ std::vector<Partial> predicted_partials(const Scale& scale, const std::vector<in
 }
 
 // The chain: notes -> sum of partials (peak at most 1) -> envelope -> model -> DC removal
-// -> envelope again -> peak cap. The first envelope shapes the notes the model hears; the second makes
-// the output start and end in silence whatever the model does (the oscillator rings on
-// after its input stops). The drive into a model is fixed: every note's partials together
+// -> envelope again -> peak cap. The first envelope shapes the notes the model hears; the
+// second makes the output start and end in silence whatever the model does (the oscillator
+// rings on after its input stops, and DC removal leaves a slow tail after a quadratic term's
+// offset). The drive into a model is fixed: every note's partials together
 // reach 1 / (number of notes), so the dry mix never exceeds full scale.
 std::vector<double> render(const Scale& scale, const std::vector<int>& notes, const RenderSettings& s) {
     check_render_settings(s, notes.size());
