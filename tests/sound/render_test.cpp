@@ -99,6 +99,23 @@ TEST_CASE("every render peaks exactly at the cap and starts and ends in silence"
     }
 }
 
+TEST_CASE("a render's fade-in makes no click", "[render]") {
+    // A click is a jump: a tone switched on at its crest jumps by its full amplitude in one
+    // sample. Under the raised-cosine attack no step between samples may exceed the largest
+    // step of the steady tone by more than the ramp's own slope adds (pi / (2 * attack) against
+    // the tone's 2 pi f, under 2 % here).
+    RenderSettings s = short_settings(Model::poly);
+    const auto y = render(just_triad_scale(), {0}, s);
+    auto max_step = [&](std::size_t from, std::size_t to) {
+        double m = 0;
+        for (std::size_t i = from; i + 1 < to; ++i) m = std::max(m, std::abs(y[i + 1] - y[i]));
+        return m;
+    };
+    const double steady = max_step(4800, 9600), attack = max_step(0, 2400);
+    CHECK(attack <= 1.02 * steady);
+    CHECK(std::abs(y[1]) < 1e-3 * steady); // the first steps are tiny, not a jump
+}
+
 TEST_CASE("the default peak cap is -12 dBFS", "[render]") {
     CHECK(RenderSettings{}.peak_dbfs == -12.0);
     CHECK(db_to_gain(-12.0) == Approx(0.251188643150958).epsilon(1e-12));
@@ -319,6 +336,22 @@ TEST_CASE("terzo render writes a WAV file, refuses to overwrite it and names bad
         r = run_cli(base + "--notes 0,1 --seconds 2 --force --model oscillator --sample-format float32", dir.path);
         CHECK(r.status == 0);
         CHECK(fs::file_size(wav) > before);
+    }
+    SECTION("every model writes a file that sox reads with the requested header") {
+        for (const std::string model : {"none", "poly", "oscillator", "predicted"}) {
+            for (const std::string format : {"int16", "float32"}) {
+                const std::string f = (dir.path / (model + "-" + format + ".wav")).string();
+                r = run_cli("render '" + scl.string() + "' --notes 0,1,2 --seconds 0.5 --model " + model +
+                                " --sample-format " + format + " --out '" + f + "'",
+                            dir.path);
+                INFO(model << " " << format);
+                CHECK(r.status == 0);
+                CHECK(shell("sox --i -s '" + f + "'", dir.path).out == "24000\n");
+                CHECK(shell("sox --i -r '" + f + "'", dir.path).out == "48000\n");
+                CHECK(shell("sox --i -e '" + f + "'", dir.path).out ==
+                      (format == "int16" ? "Signed Integer PCM\n" : "Floating Point PCM\n"));
+            }
+        }
     }
     SECTION("bad options leave no file and an empty stdout") {
         const std::string other = (dir.path / "other.wav").string();
