@@ -6,6 +6,7 @@
 #include <sndfile.h>
 
 #include "core/error.hpp"
+#include "core/io/pcm.hpp"
 
 namespace terzo {
 
@@ -64,12 +65,15 @@ std::string encode_wav(const std::vector<double>& samples, const WavFormat& form
     TERZO_ASSERT(sf_format_check(&info));
     SNDFILE* sf = sf_open_virtual(&io, SFM_WRITE, &info, &file);
     if (!sf) fail({"wav", 0, 0}, std::string("cannot encode: ") + sf_strerror(nullptr));
-    // Without clipping libsndfile wraps out-of-range values around to the opposite sign.
-    sf_command(sf, SFC_SET_CLIPPING, nullptr, SF_TRUE);
     // The float format's optional PEAK chunk carries a time stamp: leave it out so the same
     // render always gives the same bytes.
     sf_command(sf, SFC_SET_ADD_PEAK_CHUNK, nullptr, SF_FALSE);
-    const sf_count_t written = sf_write_double(sf, samples.data(), sf_count_t(samples.size()));
+    // 16-bit samples are converted here (to_pcm16 rounds to nearest; libsndfile's own
+    // conversion rounds down), float samples by libsndfile (a plain narrowing to float).
+    const sf_count_t written =
+        format.sample_format == SampleFormat::int16
+            ? sf_write_short(sf, to_pcm16(samples).data(), sf_count_t(samples.size()))
+            : sf_write_double(sf, samples.data(), sf_count_t(samples.size()));
     const std::string problem = written == sf_count_t(samples.size()) ? "" : sf_strerror(sf);
     const int closed = sf_close(sf);
     if (!problem.empty() || closed != 0)

@@ -65,8 +65,8 @@ TEST_CASE("a 16-bit WAV file reads back in Python's wave module with the same he
         "print(w.getnchannels(), w.getsampwidth(), w.getframerate(), n, w.getcomptype(), s[0], s[1], s[2], s[3], s[10])\n";
     std::ofstream(dir.path / "read.py") << py;
     const std::string got = run("python3 '" + (dir.path / "read.py").string() + "'", dir.path / "out.txt");
-    // Expected sample values: libsndfile scales +-1 to the 16-bit range and rounds; 0.25
-    // becomes 8192 (0.25 * 32768) and clipping pins +-1.5 to 32767 and -32768.
+    // Expected sample values: x * 32768 rounded to nearest (not at a half here, so lround
+    // agrees); 0.25 becomes 8192 and clipping pins +-1.5 to 32767 and -32768.
     const long s10 = std::lround(0.5 * std::sin(2 * M_PI * 440.0 * 10 / 44100.0) * 32768.0);
     CHECK(got == "1 2 44100 1000 NONE 0 32767 -32768 8192 " + std::to_string(s10));
 }
