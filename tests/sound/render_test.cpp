@@ -116,52 +116,6 @@ TEST_CASE("a render's fade-in makes no click", "[render]") {
     CHECK(std::abs(y[1]) < 1e-3 * steady); // the first steps are tiny, not a jump
 }
 
-TEST_CASE("the default peak cap is -12 dBFS", "[render]") {
-    CHECK(RenderSettings{}.peak_dbfs == -12.0);
-    CHECK(db_to_gain(-12.0) == Approx(0.251188643150958).epsilon(1e-12));
-    CHECK(gain_to_db(0.5) == Approx(-6.020599913279624).epsilon(1e-12));
-}
-
-TEST_CASE("ramps are raised cosines with silent ends", "[render]") {
-    CHECK(ramp_gain(0.0) == 0.0);
-    CHECK(ramp_gain(0.5) == Approx(0.5));
-    CHECK(ramp_gain(1.0) == 1.0);
-    CHECK(ramp_gain(-1.0) == 0.0);
-    std::vector<double> x(1000, 1.0);
-    apply_envelope(x, Envelope{0.01, 0.002}, 10000); // 100 and 20 frames
-    CHECK(x[0] == 0.0);
-    CHECK(x[50] == Approx(0.5));
-    CHECK(x[100] == 1.0);
-    CHECK(x[989] == Approx(0.5));
-    CHECK(x[999] == 0.0);
-}
-
-TEST_CASE("DC removal takes out an offset and leaves audible tones alone", "[render]") {
-    std::vector<double> dc(48000, 0.3);
-    remove_dc(dc, 48000);
-    CHECK(dc.back() == Approx(0.3 * std::exp(-4 * M_PI)).epsilon(0.01)); // decays as exp(-2 pi fc t)
-    // A 100 Hz sine after one second: within 0.01 dB of its level.
-    std::vector<double> x(96000);
-    for (std::size_t i = 0; i < x.size(); ++i) x[i] = std::sin(2 * M_PI * 100 * double(i) / 48000);
-    remove_dc(x, 48000);
-    double p = 0;
-    for (std::size_t i = 48000; i < x.size(); ++i) p = std::max(p, std::abs(x[i]));
-    CHECK(std::abs(gain_to_db(p)) < 0.01);
-}
-
-TEST_CASE("harmonic partials roll off by the given dB per octave and stop below sample_rate / 6",
-          "[render]") {
-    Timbre t{8, 6.0};
-    CHECK(harmonic_gain(t, 1) == 1.0);
-    CHECK(gain_to_db(harmonic_gain(t, 2)) == Approx(-6.0));
-    CHECK(gain_to_db(harmonic_gain(t, 8)) == Approx(-18.0));
-    const auto p = harmonic_partials({1000.0, 3000.0}, 0.5, t, highest_partial_hz(48000));
-    REQUIRE(p.size() == 8 + 2); // 1000..8000 Hz, then 3000 and 6000 Hz
-    CHECK(p[7].frequency_hz == 8000.0);
-    CHECK(p[9].frequency_hz == 6000.0);
-    CHECK(p[9].amplitude == Approx(0.5 * db_to_gain(-6.0)));
-}
-
 TEST_CASE("render settings out of range are rejected with the option's name", "[render]") {
     const Scale sc = just_triad_scale();
     auto rejects = [&](auto change, const std::string& message, std::vector<int> notes = {0, 1}) {
