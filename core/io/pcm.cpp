@@ -12,7 +12,9 @@ std::vector<std::int16_t> to_pcm16(const std::vector<double>& samples) {
     std::vector<std::int16_t> out(samples.size());
     for (std::size_t i = 0; i < samples.size(); ++i) {
         const double v = std::nearbyint(samples[i] * 32768.0);
-        out[i] = v >= 32767.0 ? std::int16_t(32767) : v <= -32768.0 ? std::int16_t(-32768) : std::int16_t(v);
+        out[i] = v >= 32767.0    ? std::int16_t(32767)
+                 : v <= -32768.0 ? std::int16_t(-32768)
+                                 : std::int16_t(v);
     }
     return out;
 }

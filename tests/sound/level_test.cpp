@@ -18,13 +18,16 @@ TEST_CASE("the default peak cap is -12 dBFS", "[level]") {
 TEST_CASE("DC removal takes out an offset and leaves audible tones alone", "[level]") {
     std::vector<double> dc(48000, 0.3);
     remove_dc(dc, 48000);
-    CHECK(dc.back() == Approx(0.3 * std::exp(-4 * M_PI)).epsilon(0.01)); // decays as exp(-2 pi fc t)
+    CHECK(dc.back() ==
+          Approx(0.3 * std::exp(-4 * M_PI)).epsilon(0.01)); // decays as exp(-2 pi fc t)
     // A 100 Hz sine after one second: within 0.01 dB of its level.
     std::vector<double> x(96000);
-    for (std::size_t i = 0; i < x.size(); ++i) x[i] = std::sin(2 * M_PI * 100 * double(i) / 48000);
+    for (std::size_t i = 0; i < x.size(); ++i)
+        x[i] = std::sin(2 * M_PI * 100 * double(i) / 48000);
     remove_dc(x, 48000);
     double p = 0;
-    for (std::size_t i = 48000; i < x.size(); ++i) p = std::max(p, std::abs(x[i]));
+    for (std::size_t i = 48000; i < x.size(); ++i)
+        p = std::max(p, std::abs(x[i]));
     CHECK(std::abs(gain_to_db(p)) < 0.01);
 }
 
