@@ -10,5 +10,6 @@ namespace terzo::cli {
 void add_inspect(CLI::App& app);
 void add_resultants(CLI::App& app);
 void add_render(CLI::App& app);
+void add_export(CLI::App& app);
 
 } // namespace terzo::cli
