@@ -91,13 +91,19 @@ TEST_CASE("an exact pure interval is pure with zero beats, decided exactly", "[b
 }
 
 TEST_CASE("a cents-only interval is wide or narrow by its cents and not exact", "[beats]") {
-    // 386.3137 c typed in a .scl file is 0.000014 c below 5/4: narrow, a tiny rate.
+    // 386.3137 c typed in a .scl file is 0.000014 c below 5/4: pure as far as it can tell.
     Beat b = beat(Pitch::from_cents(386.3137), 264.0, kind("major third"));
     CHECK_FALSE(b.exact);
-    CHECK(b.tempering == Tempering::narrow);
-    CHECK(b.hz < 0.0001);
+    CHECK(b.tempering == Tempering::pure);
+    CHECK(b.hz == 0.0);
+    // 386.3136 is 0.000114 c below: narrow.
+    Beat n = beat(Pitch::from_cents(386.3136), 264.0, kind("major third"));
+    CHECK(n.tempering == Tempering::narrow);
+    CHECK(n.hz > 0.0);
+    CHECK(n.hz < 0.0001);
     Beat w = beat(Pitch::from_cents(702.0), 200.0, kind("fifth"));
     CHECK(w.tempering == Tempering::wide);
+    CHECK_FALSE(w.exact);
     CHECK(w.hz == Approx(beat_rate(200.0, 200.0 * std::exp2(702.0 / 1200), 3, 2)));
     CHECK(tempering_name(Tempering::wide) == "wide");
     CHECK(tempering_name(Tempering::narrow) == "narrow");
