@@ -6,6 +6,9 @@
 #include <fstream>
 #include <numeric>
 
+#include "core/analysis/chord.hpp"
+#include "core/analysis/fit.hpp"
+
 namespace terzo {
 
 std::string key_name(const Key& k, Spelling spelling) {
@@ -125,6 +128,9 @@ CompareSummary summarize(const std::vector<KeyReport>& keys, const std::optional
             consider("minor third", k.key.root, k.minor_third, wolf_third_cents);
         }
     }
+    auto rank = [](const Wolf& w) { return w.interval == "fifth" ? 0 : w.interval == "major third" ? 1 : 2; };
+    std::stable_sort(s.wolves.begin(), s.wolves.end(),
+                     [&](const Wolf& a, const Wolf& b) { return rank(a) < rank(b); });
     return s;
 }
 
@@ -155,6 +161,23 @@ KeyComparison compare_keys(const Scale& scale, const CompareOptions& options, co
             r.minor_third = b(r.third, r.fifth, kinds[3]);
         }
         c.keys.push_back(r);
+    }
+    if (options.fit) {
+        ToneOptions tones;
+        tones.order = options.fit_order;
+        check_options(tones);
+        // The keyboard's reference is the tonic in octave 4, so note (degree, period) of the
+        // keyboard is the same sound as the NoteMap's note.
+        Keyboard keyboard(scale, map.hz(NoteName{options.tonic, 4}), 1);
+        auto keyboard_note = [&](const NoteName& n) {
+            int m = midi_key(n) - (60 + options.tonic);
+            int period = m >= 0 ? m / 12 : -((-m + 11) / 12);
+            return keyboard.note(m - 12 * period, period);
+        };
+        for (KeyReport& r : c.keys) {
+            std::vector<Note> triad = {keyboard_note(r.root), keyboard_note(r.third), keyboard_note(r.fifth)};
+            r.fit = fit(chord_tones(keyboard, triad, tones)).rms_cents;
+        }
     }
     c.circle = fifth_circle(map);
     c.summary = summarize(c.keys, options.weights);

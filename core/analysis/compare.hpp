@@ -48,7 +48,9 @@ struct KeyReport {
     Beat fifth_beat;             ///< root-fifth against 3/2
     Beat major_third;            ///< against 5/4: root-third (major), third-fifth (minor)
     Beat minor_third;            ///< against 6/5: third-fifth (major), root-third (minor)
-    std::optional<double> fit;   ///< resultant fit of the triad, when computed
+    /// Resultant fit of the triad (fit.hpp: weighted RMS, in cents, of how far the
+    /// combination tones of its three dyads land from the tuning's notes), when computed.
+    std::optional<double> fit;
 };
 
 /// An interval far enough from pure to count as a wolf (see wolf thresholds below).
@@ -76,7 +78,7 @@ struct CompareSummary {
     double mean_major_third = 0, worst_major_third = 0; ///< |cents from 5/4|
     double mean_minor_third = 0, worst_minor_third = 0; ///< |cents from 6/5|
     int pure_fifths = 0, pure_major_thirds = 0, pure_minor_thirds = 0; ///< of the 12 each, exactly pure
-    std::vector<Wolf> wolves;                           ///< of the 12 fifths, 12 major and 12 minor thirds
+    std::vector<Wolf> wolves;                           ///< of the 12 fifths, 12 major and 12 minor thirds, in that order
     std::optional<double> mean_fit;                     ///< weighted, when fits are computed
     bool weighted = false;
 };
@@ -86,6 +88,8 @@ struct CompareOptions {
     int tonic = 0;                     ///< pitch class of degree 0
     int octave = 4;                    ///< octave of the triads' roots
     std::optional<KeyWeights> weights; ///< none: every key weighs 1
+    bool fit = true;                   ///< compute each triad's resultant fit
+    int fit_order = 3;                 ///< highest combination order for the fit (2..12)
 };
 
 /// One 12-note tuning, key by key.
@@ -97,8 +101,8 @@ struct KeyComparison {
     CompareSummary summary;
 };
 
-/// Compares one 12-note tuning key by key; throws InputError at `name` when it is not 12 notes.
-/// `octave` must be within 0..8 (InputError at "--octave").
+/// Compares one 12-note tuning key by key; throws InputError at `name` when it is not 12 notes,
+/// at "--octave" for an octave outside 0..8, at "--order" for a fit order outside 2..12.
 KeyComparison compare_keys(const Scale& scale, const CompareOptions& options, const std::string& name);
 
 /// Recomputes the summary from the keys' values (also after fits are filled in).
