@@ -81,7 +81,9 @@ Table sheet_order_table(const Sheet& s) {
     for (const TuningStep& st : s.order) {
         ++n;
         if (st.kind == TuningStep::Kind::reference) {
-            t.add({std::to_string(n), step_to_cell(st, s), "reference", "-", fixed(st.to_hz, 3), "", ""});
+            // The reference note itself, or (with another start note) that note's frequency.
+            t.add({std::to_string(n), step_to_cell(st, s),
+                   st.to == s.options.reference.note ? "reference" : "its Hz", "-", fixed(st.to_hz, 3), "", ""});
             continue;
         }
         t.add({std::to_string(n), step_to_cell(st, s), name(*st.from, s), step_name(st.kind), fixed(st.to_hz, 3),

@@ -58,6 +58,10 @@ TEST_CASE("the order and interval tables read as a tuner's steps", "[sheet_repor
     Table o = sheet_order_table(s);
     CHECK(o.rows[0] == Keys{"1", "A4", "reference", "-", "440.000", "", ""});
     CHECK(o.rows[1] == Keys{"2", "A3", "A4", "octave down", "220.000", "0.00", "pure"});
+    SheetOptions from_c;
+    from_c.start = note("C4");
+    CHECK(sheet_order_table(make_sheet(test::equal_12(), from_c, "12")).rows[0] ==
+          Keys{"1", "C4", "its Hz", "-", "261.626", "", ""});
     SheetOptions wide;
     wide.high = note("G4");
     Sheet g = make_sheet(test::werckmeister_3(), wide, "w3");
