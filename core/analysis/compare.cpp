@@ -15,12 +15,6 @@ std::string key_name(const Key& k, Spelling spelling) {
     return pitch_class_name(k.root, spelling) + (k.minor ? " minor" : " major");
 }
 
-namespace {
-
-std::string quoted(std::string_view s) { return "\"" + std::string(s) + "\""; }
-
-} // namespace
-
 KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
     KeyWeights w;
     std::array<int, 24> seen_on{};
