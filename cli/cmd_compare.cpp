@@ -46,6 +46,7 @@ void add_compare(CLI::App& app) {
         cmd, "Table to print: keys, summary, wolves or classes (--csv: default keys)");
     cmd->callback([=] {
         const ReportOutput& o = *out_opts;
+        check_svg_target(o);
         CompareOptions opts;
         opts.reference = parse_pitch_reference(*pitch, {"--pitch", 0, 0});
         opts.tonic = parse_pitch_class(*tonic, {"--tonic", 0, 0});

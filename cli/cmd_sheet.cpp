@@ -55,6 +55,7 @@ void add_sheet(CLI::App& app) {
         cmd, "Table to print: notes, intervals, order or fifths (--csv: default notes)");
     cmd->callback([=] {
         const ReportOutput& o = *out_opts;
+        check_svg_target(o);
         SheetOptions opts;
         opts.reference = parse_pitch_reference(*pitch, {"--pitch", 0, 0});
         opts.tonic = parse_pitch_class(*tonic, {"--tonic", 0, 0});
