@@ -73,8 +73,9 @@ TEST_CASE("terzo compare finds the pure thirds of a library file written in cent
     // scales/meantone-quarter-comma.scl holds cents-only values (E and G# are written as
     // ratios); its 8 major thirds are pure, most of them within the cents-only tolerance
     // (REFERENCES.md 2.2: 1/4-comma makes 5/4 pure).
-    auto r = run_terzo("compare " + terzo::test::source_path("scales/meantone-quarter-comma.scl") + " " +
-                       terzo::test::source_path("scales/werckmeister-iii.scl") + " --json --no-fit");
+    auto r =
+        run_terzo("compare " + terzo::test::source_path("scales/meantone-quarter-comma.scl") + " " +
+                  terzo::test::source_path("scales/werckmeister-iii.scl") + " --json --no-fit");
     REQUIRE(r.status == 0);
     auto doc = nlohmann::json::parse(r.out);
     CHECK(doc["tunings"][0]["summary"]["pure_major_thirds"] == 8);
