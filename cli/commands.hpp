@@ -12,6 +12,8 @@ inline constexpr const char* tuning_help = "A .scl file or an inline recipe such
 
 void add_inspect(CLI::App& app);
 void add_resultants(CLI::App& app);
+void add_sheet(CLI::App& app);
+void add_compare(CLI::App& app);
 void add_render(CLI::App& app);
 void add_export(CLI::App& app);
 
