@@ -125,7 +125,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     if (o.ref_hz_given) {
         if (!(o.ref_hz > 0 && o.ref_hz <= 20000))
             fail({"--ref-hz", 0, 0},
-                 fixed(o.ref_hz, 6) +
+                 number_text(o.ref_hz) +
                      " Hz is outside the accepted range (above 0, at most 20000 Hz)");
         ref = {root_key, o.ref_hz};
     }
@@ -271,15 +271,14 @@ void run_export(const ExportOptions& o, std::ostream& report) {
                      "\"" + outputs[i].path + "\" is also the file of " + outputs[j].option +
                          "; give each output its own file (no file was written)");
         std::error_code ec;
-        const SourcePos pos{outputs[i].path, 0, 0};
-        if (std::filesystem::is_directory(p, ec))
-            fail(pos, "is a folder; give a file name (no file was written)");
         if (!o.force && std::filesystem::exists(p, ec))
-            fail(pos, "already exists and was not changed; give --force to replace it (no file was "
-                      "written)");
-        if (!std::filesystem::is_directory(p.parent_path(), ec))
-            fail(pos,
-                 "folder " + p.parent_path().string() + " does not exist (no file was written)");
+            fail({outputs[i].path, 0, 0}, "already exists and was not changed; give --force to "
+                                          "replace it (no file was written)");
+        try {
+            check_target(outputs[i].path, Overwrite::allow);
+        } catch (const InputError& e) {
+            fail(e.pos(), e.message() + " (no file was written)");
+        }
     }
 
     report << "Tuning: " << scale.description() << " (" << scale.size() << " degrees, period "

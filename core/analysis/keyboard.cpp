@@ -38,7 +38,7 @@ Keyboard::Keyboard(Scale scale, double ref_hz, int span)
     : scale_(std::move(scale)), ref_hz_(ref_hz), span_(span),
       period_cents_(scale_.period().cents()) {
     if (!std::isfinite(ref_hz) || ref_hz < min_ref_hz || ref_hz > max_ref_hz)
-        fail({"--ref-hz"}, "reference frequency " + (std::isfinite(ref_hz) ? fixed(ref_hz, 6) : std::string("(not finite)")) +
+        fail({"--ref-hz"}, "reference frequency " + number_text(ref_hz) +
                                " Hz is outside the allowed range 0.001 to 100000 Hz");
     if (span < 1 || span > max_span)
         fail({"--span"}, "span " + std::to_string(span) + " is outside the allowed range 1 to " +

@@ -20,4 +20,12 @@ std::string signed_fixed(double value, int decimals) {
     return s;
 }
 
+std::string number_text(double value) {
+    if (std::isnan(value)) return "nan";
+    if (std::isinf(value)) return value > 0 ? "inf" : "-inf";
+    char buf[64];
+    std::snprintf(buf, sizeof buf, "%.10g", value);
+    return buf;
+}
+
 } // namespace terzo

@@ -53,11 +53,11 @@ TEST_CASE("tempered and cents-only notes have no ratio but the right frequency",
 
 TEST_CASE("a keyboard rejects a reference or span outside its limits", "[keyboard]") {
     REQUIRE_THROWS_WITH(Keyboard(test::just12(), 0.0),
-                        "--ref-hz: error: reference frequency 0.000000 Hz is outside the allowed range 0.001 to 100000 Hz");
+                        "--ref-hz: error: reference frequency 0 Hz is outside the allowed range 0.001 to 100000 Hz");
     REQUIRE_THROWS_WITH(Keyboard(test::just12(), 200000.0),
-                        "--ref-hz: error: reference frequency 200000.000000 Hz is outside the allowed range 0.001 to 100000 Hz");
+                        "--ref-hz: error: reference frequency 200000 Hz is outside the allowed range 0.001 to 100000 Hz");
     REQUIRE_THROWS_WITH(Keyboard(test::just12(), std::nan("")),
-                        "--ref-hz: error: reference frequency (not finite) Hz is outside the allowed range 0.001 to 100000 Hz");
+                        "--ref-hz: error: reference frequency nan Hz is outside the allowed range 0.001 to 100000 Hz");
     REQUIRE_THROWS_WITH(Keyboard(test::just12(), 440.0, 0),
                         "--span: error: span 0 is outside the allowed range 1 to 11 periods");
     REQUIRE_THROWS_WITH(Keyboard(test::just12(), 440.0, 12),

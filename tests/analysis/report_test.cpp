@@ -102,7 +102,7 @@ TEST_CASE("a bad option prints one error naming it and nothing on stdout", "[rep
         {"--order 13", "--order: error: order 13 is outside the allowed range 2 to 12\n"},
         {"--partials 33", "--partials: error: partials 33 is outside the allowed range 1 to 32\n"},
         {"--span 12", "--span: error: span 12 is outside the allowed range 1 to 11 periods\n"},
-        {"--ref-hz -1", "--ref-hz: error: reference frequency -1.000000 Hz is outside the allowed range 0.001 to 100000 Hz\n"},
+        {"--ref-hz -1", "--ref-hz: error: reference frequency -1 Hz is outside the allowed range 0.001 to 100000 Hz\n"},
         {"--chord 0,q", "--chord: error: chord note \"q\" is neither a degree number nor a ratio p/q\n"},
         {"--span 11 --order 12", "--order: error: this request could compute 1738044 tones (8778 dyads), more than the limit of 1000000; lower --order, --span or --partials\n"},
     };

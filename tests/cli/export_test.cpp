@@ -138,7 +138,7 @@ TEST_CASE("export rejects bad options with one message naming the option", "[exp
          "--ref-hz: error: give either --ref-hz (the root key's frequency) or --pitch (a named "
          "note's), not both\n"},
         {"export meantone.scl --ref-hz 0 --table t.csv",
-         "--ref-hz: error: 0.000000 Hz is outside the accepted range (above 0, at most 20000 "
+         "--ref-hz: error: 0 Hz is outside the accepted range (above 0, at most 20000 "
          "Hz)\n"},
         {"export meantone.scl --pitch H4=440 --table t.csv",
          "--pitch: error: expected a note letter A to G in \"H4\"\n"},
@@ -183,8 +183,7 @@ TEST_CASE("export rejects bad options with one message naming the option", "[exp
         if (*message)
             CHECK(r.err == message);
         else
-            CHECK(r.err == "missing/b.syx: error: folder " + (d / "missing").string() +
-                               " does not exist (no file was written)\n");
+            CHECK(r.err == "missing/b.syx: error: folder missing does not exist (no file was written)\n");
     }
     for (const char* f : {"t.csv", "t.txt", "a.syx", "b.syx", "n.syx", "o.syx"})
         CHECK_FALSE(fs::exists(d / f));
