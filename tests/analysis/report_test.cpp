@@ -96,7 +96,7 @@ TEST_CASE("the streamed JSON is the same text as the whole document", "[report]"
 }
 
 TEST_CASE("labels and exact values print the way the README shows them", "[report]") {
-    CHECK(note_label(4, -2) == "4@-2");
+    CHECK(note_label(4, -2) == "degree 4, period -2");
     Tone t;
     CHECK(exact_text(t) == "-");
     t.ratio = Ratio(1, 4);
