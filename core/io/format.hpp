@@ -3,6 +3,7 @@
 #pragma once
 
 #include <string>
+#include <vector>
 
 namespace terzo {
 
@@ -14,5 +15,7 @@ std::string signed_fixed(double value, int decimals);
 /// value given on the command line: number_text(0) == "0", number_text(-5) == "-5",
 /// number_text(261.6255653) == "261.6255653", number_text(1e12) == "1e+12"; "nan", "inf".
 std::string number_text(double value);
+/// Sorted whole numbers as runs: runs_text({0, 1, 2, 3, 125, 127}) == "0-3, 125, 127".
+std::string runs_text(const std::vector<int>& sorted);
 
 } // namespace terzo

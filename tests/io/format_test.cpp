@@ -24,3 +24,10 @@ TEST_CASE("a value from the command line is echoed the way it was typed", "[form
     CHECK(terzo::number_text(std::nan("")) == "nan");
     CHECK(terzo::number_text(-HUGE_VAL) == "-inf");
 }
+
+TEST_CASE("sorted numbers are written as runs", "[format]") {
+    CHECK(terzo::runs_text({}) == "");
+    CHECK(terzo::runs_text({7}) == "7");
+    CHECK(terzo::runs_text({0, 1, 2, 3, 125, 127}) == "0-3, 125, 127");
+    CHECK(terzo::runs_text({0, 1, 2, 24, 100, 101}) == "0-2, 24, 100-101");
+}

@@ -541,3 +541,24 @@ TEST_CASE("the name field is 16 printable ASCII characters padded with spaces", 
         "--name: error: tuning name \"caf\xC3\xA9\" has a character that is not printable ASCII at "
         "position 4; the name field holds plain ASCII only");
 }
+
+TEST_CASE("channel lists name channels 1-16 singly or as ranges", "[mts]") {
+    const SourcePos pos{"--channels", 0, 0};
+    CHECK(parse_channels("1-16", pos) == all_channels);
+    CHECK(parse_channels("1,2,10", pos) == ((1u << 0) | (1u << 1) | (1u << 9)));
+    CHECK(parse_channels("3-5,9", pos) == ((1u << 2) | (1u << 3) | (1u << 4) | (1u << 8)));
+    CHECK(parse_channels("16", pos) == (1u << 15));
+    REQUIRE_THROWS_WITH(parse_channels("0,3", pos), "--channels: error: channel 0 is outside 1..16");
+    REQUIRE_THROWS_WITH(parse_channels("17", pos), "--channels: error: channel 17 is outside 1..16");
+    REQUIRE_THROWS_WITH(parse_channels("9-2", pos), "--channels: error: channel range 9-2 runs backwards");
+    for (const char* bad : {"x", "", ",", "1-", "1--3", "100"})
+        REQUIRE_THROWS_WITH(parse_channels(bad, pos),
+                            std::string("--channels: error: expected channel numbers 1..16 such as "
+                                        "1,2,10 or 1-16, found \"") + bad + "\"");
+}
+
+TEST_CASE("a description becomes a name field of printable ASCII", "[mts]") {
+    CHECK(mts_name_from_description("Quarter-comma meantone") == "Quarter-comma me");
+    CHECK(mts_name_from_description("caf\xC3\xA9") == "caf??");
+    CHECK(mts_name_from_description("") == "terzo");
+}
