@@ -34,7 +34,7 @@ void add_resultants(CLI::App& app) {
         opt.order = a->order;
         opt.partials = a->partials;
         check_options(opt);
-        Keyboard kb(load_tuning(a->tuning), a->ref_hz, a->span);
+        Keyboard kb(load_tuning(a->tuning), a->ref_hz, a->span, a->tuning);
         ResultantsReport r;
         r.keyboard = &kb;
         r.options = opt;
