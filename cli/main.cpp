@@ -11,6 +11,7 @@ int main(int argc, char** argv) {
     app.require_subcommand(1);
     terzo::cli::add_inspect(app);
     terzo::cli::add_resultants(app);
+    terzo::cli::add_render(app);
     terzo::cli::add_export(app);
     try {
         app.parse(argc, argv);

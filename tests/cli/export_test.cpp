@@ -146,7 +146,8 @@ TEST_CASE("export rejects bad options with one message naming the option", "[exp
         {"export meantone.scl --channels x --mts-octave1 o.syx",
          "--channels: error: expected channel numbers 1..16 such as 1,2,10 or 1-16, found \"x\"\n"},
         {"export meantone.scl --mts-bulk missing/b.syx", ""}, // checked below: names the folder
-        {"export nothing.scl --table t.csv", "nothing.scl: error: no such file\n"},
+        {"export nothing.scl --table t.csv",
+         "nothing.scl: error: no such file (a TUNING is a .scl file or a recipe such as \"equal 12\")\n"},
         // One degree and a period of 9999999 cents: key 60 at 1 Hz, every other key beyond
         // any frequency.
         {"export huge.scl --ref-hz 1 --table t.csv --mts-note n.syx",
