@@ -19,6 +19,7 @@ PACKAGES=(
   libboost-dev libsfml-dev libimgui-dev catch2 libcli11-dev libfmt-dev nlohmann-json3-dev
   libbenchmark-dev libfftw3-dev libsndfile1-dev sox
   xvfb xauth xdotool
+  strace
   clang libclang-rt-14-dev
 )
 

@@ -39,60 +39,6 @@ int checked_byte(int value, const char* option) {
     return value;
 }
 
-// "1-16", "1,2,10", "3-5,9": channel numbers 1..16.
-ChannelSet parse_channels(const std::string& text) {
-    const SourcePos pos{"--channels", 0, 0};
-    ChannelSet set = 0;
-    std::istringstream in(text);
-    std::string item;
-    auto number = [&](const std::string& s) {
-        if (s.empty() || s.size() > 2 || s.find_first_not_of("0123456789") != std::string::npos)
-            fail(pos,
-                 "expected channel numbers 1..16 such as 1,2,10 or 1-16, found \"" + text + "\"");
-        int n = std::stoi(s);
-        if (n < 1 || n > 16) fail(pos, "channel " + s + " is outside 1..16");
-        return n;
-    };
-    while (std::getline(in, item, ',')) {
-        auto dash = item.find('-');
-        int lo = number(item.substr(0, dash)),
-            hi = dash == std::string::npos ? lo : number(item.substr(dash + 1));
-        if (hi < lo) fail(pos, "channel range " + item + " runs backwards");
-        for (int c = lo; c <= hi; ++c)
-            set = static_cast<ChannelSet>(set | (1u << (c - 1)));
-    }
-    if (set == 0)
-        fail(pos, "expected channel numbers 1..16 such as 1,2,10 or 1-16, found \"" + text + "\"");
-    return set;
-}
-
-// Keys as runs: "0-3, 125-127".
-std::string key_runs(const std::vector<int>& keys) {
-    std::string s;
-    for (std::size_t i = 0; i < keys.size();) {
-        std::size_t j = i;
-        while (j + 1 < keys.size() && keys[j + 1] == keys[j] + 1)
-            ++j;
-        if (!s.empty()) s += ", ";
-        s += std::to_string(keys[i]);
-        if (j > i) s += "-" + std::to_string(keys[j]);
-        i = j + 1;
-    }
-    return s;
-}
-
-// The tuning's description as a name field when --name is not given: printable ASCII only,
-// cut to 16 characters (the summary shows the result).
-std::string default_name(const std::string& description) {
-    std::string n;
-    for (char c : description) {
-        if (n.size() == 16) break;
-        const auto u = static_cast<unsigned char>(c);
-        n += (u >= 0x20 && u <= 0x7E) ? c : '?';
-    }
-    return n.empty() ? "terzo" : n;
-}
-
 // "1 key", "85 keys".
 std::string count_text(std::size_t n, const std::string& word) {
     return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
@@ -125,11 +71,11 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     if (o.ref_hz_given) {
         if (!(o.ref_hz > 0 && o.ref_hz <= 20000))
             fail({"--ref-hz", 0, 0},
-                 fixed(o.ref_hz, 6) +
+                 number_text(o.ref_hz) +
                      " Hz is outside the accepted range (above 0, at most 20000 Hz)");
         ref = {root_key, o.ref_hz};
     }
-    const ChannelSet channels = o.channels.empty() ? all_channels : parse_channels(o.channels);
+    const ChannelSet channels = o.channels.empty() ? all_channels : parse_channels(o.channels, {"--channels", 0, 0});
     const bool realtime = !o.non_realtime;
     if (o.non_realtime && !o.note.empty() && !with_bank)
         fail({"--non-realtime", 0, 0},
@@ -151,7 +97,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
 
     const Scale scale = load_tuning(o.tuning);
     const KeyMap map(scale, root_key, ref);
-    const std::string name_text = o.name.empty() ? default_name(scale.description()) : o.name;
+    const std::string name_text = o.name.empty() ? mts_name_from_description(scale.description()) : o.name;
     const auto name = mts_name(name_text, {"--name", 0, 0});
     const MtsAddress to{device, program, bank};
     const KeyEncoding keys = encode_keys(map);
@@ -271,15 +217,14 @@ void run_export(const ExportOptions& o, std::ostream& report) {
                      "\"" + outputs[i].path + "\" is also the file of " + outputs[j].option +
                          "; give each output its own file (no file was written)");
         std::error_code ec;
-        const SourcePos pos{outputs[i].path, 0, 0};
-        if (std::filesystem::is_directory(p, ec))
-            fail(pos, "is a folder; give a file name (no file was written)");
         if (!o.force && std::filesystem::exists(p, ec))
-            fail(pos, "already exists and was not changed; give --force to replace it (no file was "
-                      "written)");
-        if (!std::filesystem::is_directory(p.parent_path(), ec))
-            fail(pos,
-                 "folder " + p.parent_path().string() + " does not exist (no file was written)");
+            fail({outputs[i].path, 0, 0}, "already exists and was not changed; give --force to "
+                                          "replace it (no file was written)");
+        try {
+            check_target(outputs[i].path, Overwrite::allow);
+        } catch (const InputError& e) {
+            fail(e.pos(), e.message() + " (no file was written)");
+        }
     }
 
     report << "Tuning: " << scale.description() << " (" << scale.size() << " degrees, period "
@@ -293,7 +238,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     if (!keys.out_of_range.empty() && (any_mts || !o.smf.empty()))
         report << "Keys outside the MIDI Tuning Standard's 8.175799..13289.656616 Hz, sent as "
                   "\"no change\" in dumps and left out of single-note changes: "
-               << key_runs(keys.out_of_range) << "\n";
+               << runs_text(keys.out_of_range) << "\n";
     if (any_mts || !o.smf.empty())
         report << "Name field: \"" << std::string(name.begin(), name.end()) << "\"\n";
     // A write can still fail (disk full, permissions): remove the files this run created

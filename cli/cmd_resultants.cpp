@@ -24,20 +24,21 @@ void add_resultants(CLI::App& app) {
     cmd->add_option("--span", a->span, "Periods the keyboard spans, 1 to 11 (default 1)");
     cmd->add_option("--order", a->order, "Highest order |a|+|b| of a term, 2 to 12 (default 3)");
     cmd->add_option("--partials", a->partials, "Harmonics per note, 1 to 32 (default 1: pure tones)");
-    cmd->add_option("--chord", a->chord, "A chord instead of every dyad: degree numbers or ratios, e.g. 0,4,7 or 1/1,5/4,3/2");
+    auto* chord = cmd->add_option("--chord", a->chord, "A chord instead of every dyad: degree numbers or ratios, e.g. 0,4,7 or 1/1,5/4,3/2");
     auto* json = cmd->add_flag("--json", a->json, "Print one JSON object (keys documented in the README)");
     auto* csv = cmd->add_flag("--csv", a->csv, "Print one CSV row per tone");
     json->excludes(csv);
-    cmd->callback([a] {
-        Keyboard kb(load_tuning(a->tuning), a->ref_hz, a->span);
+    cmd->callback([a, chord] {
+        // Options first, so a mistyped number is reported before the tuning is read.
         ToneOptions opt;
         opt.order = a->order;
         opt.partials = a->partials;
         check_options(opt);
+        Keyboard kb(load_tuning(a->tuning), a->ref_hz, a->span, a->tuning);
         ResultantsReport r;
         r.keyboard = &kb;
         r.options = opt;
-        if (!a->chord.empty()) {
+        if (chord->count() > 0) { // also --chord "", which parse_chord rejects
             r.chord = parse_chord(a->chord, kb, {"--chord"});
             r.dyads = chord_tones(kb, *r.chord, opt);
             r.bass = common_bass(kb, *r.chord);

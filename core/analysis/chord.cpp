@@ -42,6 +42,9 @@ std::vector<Note> parse_chord(const std::string& text, const Keyboard& kb, const
     std::vector<Note> notes;
     const long long size = static_cast<long long>(kb.scale().size());
     const long long max_degree = size * (max_span + 1);
+    if (text.find_first_not_of(" \t") == std::string::npos)
+        fail(pos, "no chord notes given; give degree numbers or ratios separated by commas, "
+                  "such as 0,4,7");
     std::size_t start = 0;
     while (true) {
         std::size_t comma = text.find(',', start);
@@ -51,19 +54,19 @@ std::vector<Note> parse_chord(const std::string& text, const Keyboard& kb, const
         SourcePos at = pos;
         at.column = pos.column + int(start + lead); // pos.column is where the text starts, 1-based
         if (pos.column == 0) at.column = 0;
-        if (item.empty()) fail(at, "empty chord note in \"" + text + "\" (give degree numbers or ratios separated by commas)");
+        if (item.empty()) fail(at, "empty chord note in " + terzo::quoted(text) + " (give degree numbers or ratios separated by commas)");
         if (notes.size() == max_chord_notes)
             fail(at, "a chord has at most " + std::to_string(max_chord_notes) + " notes");
         if (item.find('/') != std::string::npos) {
             Ratio r = parse_ratio(item, at);
-            if (r.sign() <= 0) fail(at, "chord ratio \"" + item + "\" is not positive");
+            if (r.sign() <= 0) fail(at, "chord ratio " + terzo::quoted(item) + " is not positive");
             notes.push_back(ratio_note(kb, r));
         } else {
             bool digits = std::all_of(item.begin(), item.end(), [](char c) { return c >= '0' && c <= '9'; });
             if (!digits)
-                fail(at, "chord note \"" + item + "\" is neither a degree number nor a ratio p/q");
+                fail(at, "chord note " + terzo::quoted(item) + " is neither a degree number nor a ratio p/q");
             if (item.size() > 9 || std::stoll(item) > max_degree)
-                fail(at, "degree " + item + " is beyond the last allowed degree " + std::to_string(max_degree) +
+                fail(at, "degree " + (item.size() > 9 ? terzo::quoted(item) : item) + " is beyond the last allowed degree " + std::to_string(max_degree) +
                              " (" + std::to_string(max_span + 1) + " periods of " + std::to_string(size) + " degrees)");
             long long n = std::stoll(item);
             notes.push_back(kb.note(int(n % size), int(n / size)));
@@ -71,7 +74,7 @@ std::vector<Note> parse_chord(const std::string& text, const Keyboard& kb, const
         if (comma == std::string::npos) break;
         start = comma + 1;
     }
-    if (notes.size() < 2) fail(pos, "a chord needs at least two notes, got \"" + text + "\"");
+    if (notes.size() < 2) fail(pos, "a chord needs at least two notes, got " + terzo::quoted(text));
     return notes;
 }
 

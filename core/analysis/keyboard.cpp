@@ -34,11 +34,11 @@ double hz_of(double ref_hz, const Pitch& pitch) {
 
 } // namespace
 
-Keyboard::Keyboard(Scale scale, double ref_hz, int span)
+Keyboard::Keyboard(Scale scale, double ref_hz, int span, const std::string& tuning_name)
     : scale_(std::move(scale)), ref_hz_(ref_hz), span_(span),
       period_cents_(scale_.period().cents()) {
     if (!std::isfinite(ref_hz) || ref_hz < min_ref_hz || ref_hz > max_ref_hz)
-        fail({"--ref-hz"}, "reference frequency " + (std::isfinite(ref_hz) ? fixed(ref_hz, 6) : std::string("(not finite)")) +
+        fail({"--ref-hz"}, "reference frequency " + number_text(ref_hz) +
                                " Hz is outside the allowed range 0.001 to 100000 Hz");
     if (span < 1 || span > max_span)
         fail({"--span"}, "span " + std::to_string(span) + " is outside the allowed range 1 to " +
@@ -47,7 +47,7 @@ Keyboard::Keyboard(Scale scale, double ref_hz, int span)
     // Landings count periods in an int; a period this small would make those counts (and
     // the notes between two tones) absurd.
     if (period_cents_ < min_period_cents)
-        fail({"tuning"}, "period of " + fixed(period_cents_, 6) + " cents is smaller than the " +
+        fail({tuning_name}, "period of " + number_text(period_cents_) + " cents is smaller than the " +
                              fixed(min_period_cents, 0) + " cent a keyboard needs");
 
     degree_ratios_.reserve(scale_.size());
@@ -66,8 +66,9 @@ Keyboard::Keyboard(Scale scale, double ref_hz, int span)
     notes_.push_back(note(0, span_));
     for (const Note& n : notes_)
         if (!(n.hz >= min_note_hz && n.hz <= max_note_hz))
-            fail({"tuning"}, "note " + std::to_string(n.degree) + "@" + std::to_string(n.period) +
-                                 " would sound at " + fixed(n.hz, 6) +
+            fail({tuning_name}, "degree " + std::to_string(n.degree) + ", period " +
+                                    std::to_string(n.period) + " would sound at " +
+                                    number_text(n.hz) +
                                  " Hz, outside the 0.000001 to 1000000000 Hz a keyboard allows; "
                                  "check the tuning, --ref-hz and --span");
 

@@ -5,6 +5,7 @@
 #pragma once
 
 #include <optional>
+#include <string>
 #include <vector>
 
 #include "core/arith/pitch.hpp"
@@ -39,9 +40,10 @@ class Keyboard {
 public:
     /// Lays `scale` over `span` periods from `ref_hz`. Throws InputError naming "--ref-hz" or
     /// "--span" when ref_hz is outside [min_ref_hz, max_ref_hz] or span outside [1, max_span],
-    /// and naming "tuning" when the period is below min_period_cents or a note would sound
-    /// outside [min_note_hz, max_note_hz].
-    Keyboard(Scale scale, double ref_hz = default_ref_hz, int span = 1);
+    /// and naming `tuning_name` (the tuning's file) when the period is below min_period_cents
+    /// or a note would sound outside [min_note_hz, max_note_hz].
+    Keyboard(Scale scale, double ref_hz = default_ref_hz, int span = 1,
+             const std::string& tuning_name = "tuning");
 
     const Scale& scale() const { return scale_; }
     double ref_hz() const { return ref_hz_; }

@@ -12,11 +12,12 @@ using json = nlohmann::ordered_json;
 
 json ratio_or_null(const std::optional<Ratio>& r) { return r ? json(r->str()) : json(nullptr); }
 
+// "degree 2, period 0 (327.032 Hz, 5/4)".
 std::string note_text(const Note& n) {
-    std::string s = note_label(n.degree, n.period) + " " + fixed(n.hz, 3) + " Hz";
-    s += " (" + (n.pitch.is_exact() ? n.pitch.str() : fixed(n.cents, 3) + " c") + ")";
-    if (!n.on_scale) s += " off the scale";
-    return s;
+    std::string s = note_label(n.degree, n.period) + " (" + fixed(n.hz, 3) + " Hz, " +
+                    (n.pitch.is_exact() ? n.pitch.str() : fixed(n.cents, 3) + " c");
+    if (!n.on_scale) s += ", off the scale";
+    return s + ")";
 }
 
 // Helmholtz level of each pure-tone term of a dyad (0 when the term is not on the ladder).
@@ -37,7 +38,7 @@ json landing_json(const Landing& l) {
 } // namespace
 
 std::string note_label(int degree, int period) {
-    return std::to_string(degree) + "@" + std::to_string(period);
+    return "degree " + std::to_string(degree) + ", period " + std::to_string(period);
 }
 
 std::string exact_text(const Tone& tone) {
@@ -162,9 +163,11 @@ Table dyad_table(const DyadTones& dyad, bool with_partials) {
         t.header.push_back("partials");
         t.align.push_back(A::right);
     }
-    for (const char* h : {"Hz", "exact ratio", "lands on", "deviation c", "exact", "audibility", "Helmholtz"})
+    for (const char* h : {"Hz", "exact ratio", "lands on degree", "in period", "deviation c", "exact",
+                          "audibility", "Helmholtz"})
         t.header.push_back(h);
-    for (A a : {A::right, A::left, A::right, A::right, A::left, A::right, A::right}) t.align.push_back(a);
+    for (A a : {A::right, A::left, A::right, A::right, A::right, A::left, A::right, A::right})
+        t.align.push_back(a);
     const auto ladder = helmholtz_ladder(dyad.low.hz, dyad.high.hz, max_order);
     for (const Tone& x : dyad.tones) {
         std::vector<std::string> row = {"(" + std::to_string(x.term.a) + "," + std::to_string(x.term.b) + ")",
@@ -172,7 +175,8 @@ Table dyad_table(const DyadTones& dyad, bool with_partials) {
         if (with_partials) row.push_back(std::to_string(x.low_partial) + "x" + std::to_string(x.high_partial));
         row.push_back(fixed(x.hz, 3));
         row.push_back(exact_text(x));
-        row.push_back(note_label(x.landing.degree, x.landing.period));
+        row.push_back(std::to_string(x.landing.degree));
+        row.push_back(std::to_string(x.landing.period));
         row.push_back(signed_fixed(x.landing.deviation_cents, 3));
         row.push_back(x.landing.exact ? "=" : "");
         row.push_back(fixed(x.audibility, 2));
@@ -217,7 +221,8 @@ void write_resultants_text(std::ostream& out, const ResultantsReport& r) {
     out << "\n";
     if (r.chord) {
         out << "chord:";
-        for (const auto& n : *r.chord) out << "  " << note_text(n);
+        for (std::size_t i = 0; i < r.chord->size(); ++i)
+            out << (i ? "; " : " ") << note_text((*r.chord)[i]);
         out << "\n";
     }
     for (const auto& d : r.dyads) {
@@ -239,7 +244,7 @@ void write_resultants_text(std::ostream& out, const ResultantsReport& r) {
             out << (b.approximate ? ", approximate (worst note " + fixed(b.max_error_cents, 3) + " c off)" : ", exact");
             out << "; notes are its multiples";
             for (const auto& m : b.multiples) out << ' ' << m;
-            out << "; lands on " << note_label(b.landing.degree, b.landing.period) << ' '
+            out << "; lands on " << note_label(b.landing.degree, b.landing.period) << ", "
                 << signed_fixed(b.landing.deviation_cents, 3) << " c" << (b.landing.exact ? " =" : "") << "\n";
         }
     }
@@ -248,8 +253,8 @@ void write_resultants_text(std::ostream& out, const ResultantsReport& r) {
     out << "\nlegend: term (a,b) is the tone a*f_low + b*f_high";
     if (r.options.partials > 1) out << " of partials i x j (a*i*f_low + b*j*f_high)";
     out << "; L and H name the low and high note.\n"
-           "  lands on d@p: the nearest note, degree d in period p (0 = the keyboard's lowest period,\n"
-           "  negative below it). deviation: tone minus that note in cents. '=' the tone coincides\n"
+           "  lands on degree, in period: the nearest note (period 0 is the keyboard's lowest period,\n"
+           "  -1 the one below it). deviation: tone minus that note in cents. '=' the tone coincides\n"
            "  with the note exactly (proven with exact arithmetic, never by a tolerance).\n"
            "  exact ratio: tone / reference; '-' when not exact. audibility: a rough estimate in\n"
            "  [0, 1] from published psychoacoustic findings (see the README), not a measurement.\n"

@@ -27,7 +27,7 @@ struct ResultantsReport {
     std::optional<CommonBass> bass;         ///< its common resultant bass
 };
 
-/// "4@0": degree 4 in period 0.
+/// "degree 4, period -1": degree 4 one period below the keyboard's lowest period.
 std::string note_label(int degree, int period);
 /// The exact value of a tone as text ("1/4", "2^(1/3)"), or "-" when it is not exact.
 std::string exact_text(const Tone& tone);

@@ -16,7 +16,14 @@ namespace terzo {
 
 namespace {
 
-std::string errno_text() { return std::strerror(errno); }
+// The system's reason, with what it means for a user where the words alone are unclear.
+std::string errno_text() {
+    const int e = errno;
+    std::string text = std::strerror(e);
+    if (e == ENOSPC || e == EDQUOT || e == EFBIG)
+        return "the disk is full or a file size limit was reached (" + text + ")";
+    return text;
+}
 
 // Writes all of data to fd, retrying short writes.
 bool write_all(int fd, const std::string& data) {
@@ -34,13 +41,33 @@ bool write_all(int fd, const std::string& data) {
 
 } // namespace
 
+void check_target(const std::filesystem::path& path, Overwrite overwrite) {
+    namespace fs = std::filesystem;
+    const SourcePos pos{path.string(), 0, 0};
+    std::error_code ec;
+    const fs::file_status st = fs::status(path, ec);
+    if (fs::is_directory(st)) fail(pos, "is a folder; give a file name");
+    // Renaming over a device or a pipe would replace it with a plain file.
+    if (fs::exists(st) && !fs::is_regular_file(st))
+        fail(pos, "is not a regular file (a device, pipe or socket); give a file name");
+    if (overwrite == Overwrite::refuse && fs::exists(st))
+        fail(pos, "already exists and was not changed (allow overwriting to replace it)");
+    // The folder is checked by its absolute name but named as the user wrote it.
+    const fs::file_status dir_st =
+        fs::status(fs::absolute(path, ec).lexically_normal().parent_path(), ec);
+    const std::string dir = path.has_parent_path() ? path.parent_path().string() : ".";
+    if (!fs::exists(dir_st)) fail(pos, "folder " + dir + " does not exist");
+    if (!fs::is_directory(dir_st)) fail(pos, dir + " is a file, not a folder");
+}
+
 void write_file_atomically(const std::filesystem::path& path,
                            const std::function<void(std::ostream&)>& write, Overwrite overwrite) {
     const SourcePos pos{path.string(), 0, 0};
+    check_target(path, overwrite);
     std::error_code ec;
-    if (std::filesystem::is_directory(path, ec)) fail(pos, "is a folder; give a file name");
-    if (overwrite == Overwrite::refuse && std::filesystem::exists(path, ec))
-        fail(pos, "already exists and was not changed (allow overwriting to replace it)");
+    const std::string unchanged = std::filesystem::exists(path, ec)
+                                      ? "; the existing file was not changed"
+                                      : "; no file was created";
 
     std::ostringstream buffer;
     write(buffer); // may throw; nothing is on disk yet
@@ -55,7 +82,7 @@ void write_file_atomically(const std::filesystem::path& path,
         std::string reason = errno_text();
         ::close(fd);
         ::unlink(tmpl.c_str());
-        fail(pos, what + ": " + reason + "; the target was not changed");
+        fail(pos, what + ": " + reason + unchanged);
     };
     if (!write_all(fd, data)) give_up("cannot write");
     if (::fsync(fd) != 0) give_up("cannot flush to disk");
@@ -64,7 +91,7 @@ void write_file_atomically(const std::filesystem::path& path,
     if (::close(fd) != 0) {
         std::string reason = errno_text();
         ::unlink(tmpl.c_str());
-        fail(pos, "cannot close: " + reason + "; the target was not changed");
+        fail(pos, "cannot close: " + reason + unchanged);
     }
     if (overwrite == Overwrite::refuse) {
         // link() fails if the target appeared meanwhile, so a concurrent file is never lost.
@@ -77,7 +104,7 @@ void write_file_atomically(const std::filesystem::path& path,
     } else if (std::rename(tmpl.c_str(), path.c_str()) != 0) {
         std::string reason = errno_text();
         ::unlink(tmpl.c_str());
-        fail(pos, "cannot replace: " + reason + "; the target was not changed");
+        fail(pos, "cannot replace: " + reason + unchanged);
     }
     // Make the rename itself durable.
     int dfd = ::open(dir.c_str(), O_RDONLY | O_DIRECTORY);

@@ -11,8 +11,15 @@ namespace terzo {
 
 enum class Overwrite { refuse, allow };
 
-/// Writes path atomically with the bytes that write() puts into the stream. With
-/// Overwrite::refuse an existing file is left alone and InputError says so. Any failure
+/// Checks that path can be written before anything is: throws InputError naming the path when
+/// it is a folder or a special file (a device, a pipe), when its folder does not exist or is
+/// a file, or (with Overwrite::refuse) when it exists. write_file_atomically runs it first;
+/// callers writing several files run it on all of them so that nothing is written unless
+/// every target can be.
+void check_target(const std::filesystem::path& path, Overwrite overwrite);
+
+/// Writes path atomically with the bytes that write() puts into the stream, after
+/// check_target (with Overwrite::refuse an existing file is left alone). Any failure
 /// (unwritable folder, disk full, an exception from write) throws InputError naming the
 /// path, removes the temporary file, and leaves an existing file unchanged.
 void write_file_atomically(const std::filesystem::path& path,

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <sstream>
 
 #include "core/io/format.hpp"
 
@@ -172,17 +173,52 @@ EncodedOffsets<std::uint16_t> encode_offsets_2byte(const OctaveOffsets& o, const
                                          "-100 .. +99.988 cents");
 }
 
+ChannelSet parse_channels(const std::string& text, const SourcePos& pos) {
+    const std::string expected =
+        "expected channel numbers 1..16 such as 1,2,10 or 1-16, found " + terzo::quoted(text);
+    ChannelSet set = 0;
+    std::istringstream in(text);
+    std::string item;
+    auto number = [&](const std::string& s) {
+        if (s.empty() || s.size() > 2 || s.find_first_not_of("0123456789") != std::string::npos)
+            fail(pos, expected);
+        int n = std::stoi(s);
+        if (n < 1 || n > 16) fail(pos, "channel " + s + " is outside 1..16");
+        return n;
+    };
+    while (std::getline(in, item, ',')) {
+        auto dash = item.find('-');
+        int lo = number(item.substr(0, dash)),
+            hi = dash == std::string::npos ? lo : number(item.substr(dash + 1));
+        if (hi < lo) fail(pos, "channel range " + item + " runs backwards");
+        for (int c = lo; c <= hi; ++c)
+            set = static_cast<ChannelSet>(set | (1u << (c - 1)));
+    }
+    if (set == 0) fail(pos, expected);
+    return set;
+}
+
+std::string mts_name_from_description(std::string_view description) {
+    std::string n;
+    for (char c : description) {
+        if (n.size() == 16) break;
+        const auto u = static_cast<unsigned char>(c);
+        n += (u >= 0x20 && u <= 0x7E) ? c : '?';
+    }
+    return n.empty() ? "terzo" : n;
+}
+
 std::array<std::uint8_t, 16> mts_name(std::string_view name, const SourcePos& pos) {
     if (name.size() > 16)
-        fail(pos, "tuning name \"" + std::string(name) + "\" has " + std::to_string(name.size()) +
+        fail(pos, "tuning name " + terzo::quoted(name) + " has " + std::to_string(name.size()) +
                       " characters; the name field holds at most 16");
     std::array<std::uint8_t, 16> out;
     out.fill(' ');
     for (std::size_t i = 0; i < name.size(); ++i) {
         const auto c = static_cast<unsigned char>(name[i]);
         if (c < 0x20 || c > 0x7E)
-            fail(pos, "tuning name \"" + std::string(name) +
-                          "\" has a character that is not printable ASCII at position " +
+            fail(pos, "tuning name " + terzo::quoted(name) +
+                          " has a character that is not printable ASCII at position " +
                           std::to_string(i + 1) + "; the name field holds plain ASCII only");
         out[i] = c;
     }

@@ -86,6 +86,12 @@ struct MtsAddress {
 using ChannelSet = std::uint16_t;
 inline constexpr ChannelSet all_channels = 0xFFFF;
 
+/// Channels written as "1-16", "1,2,10" or "3-5,9"; anything else throws InputError at pos.
+ChannelSet parse_channels(const std::string& text, const SourcePos& pos);
+
+/// A tuning's description made fit for the name field: its first 16 characters, anything
+/// that is not printable ASCII as '?'; "terzo" for an empty description.
+std::string mts_name_from_description(std::string_view description);
 /// A 16-byte name field: printable ASCII (20..7E), at most 16 characters, padded with
 /// spaces; anything else throws InputError at pos.
 std::array<std::uint8_t, 16> mts_name(std::string_view name, const SourcePos& pos);

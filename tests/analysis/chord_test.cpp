@@ -29,6 +29,8 @@ TEST_CASE("a malformed chord is rejected with the rule it broke", "[chord]") {
     REQUIRE_THROWS_WITH(bad("0,-3/2"), "--chord: error: chord ratio \"-3/2\" is not positive");
     REQUIRE_THROWS_WITH(bad("0,1/0"), "--chord: error: denominator is zero in \"1/0\"");
     REQUIRE_THROWS_WITH(bad("7"), "--chord: error: a chord needs at least two notes, got \"7\"");
+    REQUIRE_THROWS_WITH(bad(""), "--chord: error: no chord notes given; give degree numbers or ratios separated by commas, such as 0,4,7");
+    REQUIRE_THROWS_WITH(bad("  "), "--chord: error: no chord notes given; give degree numbers or ratios separated by commas, such as 0,4,7");
     REQUIRE_THROWS_WITH(bad("0,200"), "--chord: error: degree 200 is beyond the last allowed degree 144 (12 periods of 12 degrees)");
     std::string many = "0";
     for (int i = 1; i <= 32; ++i) many += "," + std::to_string(i);

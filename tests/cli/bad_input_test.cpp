@@ -19,6 +19,7 @@ namespace {
 
 struct Case {
     std::string name, setup, run, error;
+    long limit = 0; ///< bytes any one file may grow to (0: no limit), a full disk as writers see it
 };
 
 std::vector<Case> load_cases() {
@@ -26,11 +27,12 @@ std::vector<Case> load_cases() {
     std::vector<Case> cases;
     std::string line;
     while (std::getline(in, line)) {
-        if (line.rfind("== ", 0) == 0) cases.push_back({line.substr(3), "", "", ""});
+        if (line.rfind("== ", 0) == 0) cases.push_back({line.substr(3), "", "", "", 0});
         else if (cases.empty() || line.empty() || line[0] == '#') continue;
         else if (line.rfind("setup: ", 0) == 0) cases.back().setup = line.substr(7);
         else if (line.rfind("run: ", 0) == 0) cases.back().run = line.substr(5);
         else if (line.rfind("error: ", 0) == 0) cases.back().error = line.substr(7);
+        else if (line.rfind("limit: ", 0) == 0) cases.back().limit = std::stol(line.substr(7));
     }
     return cases;
 }
@@ -73,7 +75,14 @@ TEST_CASE("every bad input gets one clear error, a non-zero exit and no file wri
             fs::path dir = temp_folder("bad-input");
             REQUIRE(run("cd " + dir.string() + " && { " + c.setup + " ; }").status == 0);
             auto before = snapshot(dir);
-            auto r = run("cd " + dir.string() + " && " + TERZO_CLI + " " + c.run);
+            std::string command = std::string(TERZO_CLI) + " " + c.run;
+            if (c.limit > 0) {
+                // The shell's ulimit -f counts 512-byte blocks; with SIGXFSZ ignored a write past
+                // the limit fails with EFBIG instead of killing terzo.
+                REQUIRE(c.limit % 512 == 0);
+                command = "(trap '' XFSZ; ulimit -f " + std::to_string(c.limit / 512) + "; exec " + command + ")";
+            }
+            auto r = run("cd " + dir.string() + " && " + command);
             CHECK(r.status != 0);
             CHECK(r.out.empty());
             CHECK(r.err == c.error + "\n");

@@ -54,9 +54,29 @@ TEST_CASE("a writer that fails midway leaves the old file and no temporary file"
 
 TEST_CASE("unwritable places are reported by name", "[atomic_file]") {
     CHECK_THROWS_WITH(write_file_atomically("/nonexistent-dir/x.txt", [](std::ostream& o) { o << 1; }),
-                      Catch::StartsWith("/nonexistent-dir/x.txt: error: cannot create a file in /nonexistent-dir"));
+                      "/nonexistent-dir/x.txt: error: folder /nonexistent-dir does not exist");
+    // /proc takes no new files, whoever asks (also root, whom permissions do not stop).
+    CHECK_THROWS_WITH(write_file_atomically("/proc/x.txt", [](std::ostream& o) { o << 1; }),
+                      Catch::StartsWith("/proc/x.txt: error: cannot create a file in /proc: "));
     CHECK_THROWS_WITH(write_file_atomically("/tmp", [](std::ostream& o) { o << 1; }, Overwrite::allow),
                       "/tmp: error: is a folder; give a file name");
+}
+
+TEST_CASE("a device, or a path under a file, is refused before anything is written", "[atomic_file]") {
+    // Regression: renaming over /dev/null with Overwrite::allow replaced the device by a file.
+    CHECK_THROWS_WITH(check_target("/dev/null", Overwrite::allow),
+                      "/dev/null: error: is not a regular file (a device, pipe or socket); give a file name");
+    fs::path dir = test::temp_folder("atomic-target");
+    write_file_atomically(dir / "f", [](std::ostream& o) { o << "x"; });
+    CHECK_THROWS_WITH(check_target(dir / "f" / "g.txt", Overwrite::refuse),
+                      (dir / "f" / "g.txt").string() + ": error: " + (dir / "f").string() +
+                          " is a file, not a folder");
+    CHECK_THROWS_WITH(check_target(dir / "f", Overwrite::refuse),
+                      (dir / "f").string() + ": error: already exists and was not changed (allow overwriting to replace it)");
+    CHECK_NOTHROW(check_target(dir / "f", Overwrite::allow));
+    CHECK_NOTHROW(check_target(dir / "new.txt", Overwrite::refuse));
+    CHECK(test::slurp(dir / "f") == "x");
+    fs::remove_all(dir);
 }
 
 TEST_CASE("a write that hits a file size limit leaves the old file intact", "[atomic_file]") {

@@ -5,16 +5,13 @@
 
 #include "core/io/frequency_table.hpp"
 #include "core/io/scl.hpp"
+#include "tests/support/scales.hpp"
 
 using namespace terzo;
 using Catch::Matchers::WithinAbs;
 
 namespace {
 
-Scale scl(const std::string& text) {
-    std::istringstream in(text);
-    return read_scl(in, "test.scl");
-}
 
 std::string csv(const KeyMap& map) {
     std::ostringstream out;
@@ -37,7 +34,7 @@ TEST_CASE("the frequency table lists every key of a 12-note tuning with names an
           "[frequency_table]") {
     // A just 12-note scale on C4 = 261.6255653 Hz (12-TET C4 at A4 = 440, REFERENCES.md 8).
     const KeyMap map(
-        scl("! just\njust "
+        test::scl_text("! just\njust "
             "twelve\n12\n16/15\n9/8\n6/5\n5/4\n4/3\n45/32\n3/2\n8/5\n5/3\n9/5\n15/8\n2/1\n"),
         60, {60, 440.0 * std::exp2(-9.0 / 12.0)});
     const std::string text = csv(map);
@@ -56,7 +53,7 @@ TEST_CASE("the frequency table lists every key of a 12-note tuning with names an
 
 TEST_CASE("the frequency table of a 7-note scale has no note names and marks unsendable keys",
           "[frequency_table]") {
-    const KeyMap map(scl("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60, {60, 264.0});
+    const KeyMap map(test::scl_text("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60, {60, 264.0});
     const std::string text = csv(map);
     // Key 69 is 5/2 above the reference key 60: 264 * 5/2 = 660 Hz, MTS 4C 02 40
     // (REFERENCES.md 6.4 [C]); 1200 + 386.313714 (5/4, REFERENCES.md 1) - 900 cents of 12-TET.
@@ -78,7 +75,7 @@ TEST_CASE("the frequency table of a 7-note scale has no note names and marks uns
 }
 
 TEST_CASE("cents-only degrees have no exact ratio in the table", "[frequency_table]") {
-    const KeyMap map(scl("!\nfifths\n2\n700.\n2/1\n"), 60, {69, 440.0});
+    const KeyMap map(test::scl_text("!\nfifths\n2\n700.\n2/1\n"), 60, {69, 440.0});
     nlohmann::ordered_json j = frequency_table_json(map);
     CHECK(j["keys"][61]["ratio"].is_null());
     CHECK(j["keys"][61]["exact"] == false);

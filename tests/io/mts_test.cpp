@@ -6,6 +6,7 @@
 
 #include "core/io/mts.hpp"
 #include "core/io/scl.hpp"
+#include "tests/support/scales.hpp"
 
 using namespace terzo;
 using Catch::Matchers::WithinAbs;
@@ -124,17 +125,6 @@ Decoded read_message(const Bytes& m) {
 // ---------------------------------------------------------------------------------------
 // Tunings built from their definitions (REFERENCES.md 2.1).
 
-Scale scl(const std::string& text) {
-    std::istringstream in(text);
-    return read_scl(in, "test.scl");
-}
-
-Scale equal_12_exact() {
-    std::vector<Pitch> d;
-    for (int k = 1; k <= 11; ++k)
-        d.push_back(Pitch::from_vector(PrimeVector::prime_power(2, Ratio(k, 12))));
-    return Scale("12-TET", d, Pitch::from_ratio(Ratio(2)));
-}
 
 // A chain of fifths Eb..G# (n = -3..8) of the given fifth, folded into one octave.
 Scale chain_of_fifths(const PrimeVector& fifth) {
@@ -239,7 +229,7 @@ TEST_CASE("frequencies round to the nearest 1/16384 semitone, carrying into the 
 TEST_CASE("12-TET at A4 = 440 Hz encodes every key as (n, 0, 0)", "[mts]") {
     // MMA MIDI Tuning spec: the first byte is the 12-TET semitone, A4 = 69 = 440 Hz [S].
     SECTION("exact degrees 2^(k/12)") {
-        KeyEncoding e = encode_keys(KeyMap(equal_12_exact(), 60, {69, 440.0}));
+        KeyEncoding e = encode_keys(KeyMap(test::equal_division(12), 60, {69, 440.0}));
         for (int k = 0; k < 128; ++k)
             CHECK(e.keys[static_cast<std::size_t>(k)] ==
                   MtsFrequency{static_cast<std::uint8_t>(k), 0, 0});
@@ -248,7 +238,7 @@ TEST_CASE("12-TET at A4 = 440 Hz encodes every key as (n, 0, 0)", "[mts]") {
     }
     SECTION("cents typed in a .scl file, root on D") {
         KeyEncoding e =
-            encode_keys(KeyMap(scl("!\n12\n12\n100.\n200.\n300.\n400.\n500.\n600.\n700.\n800.\n"
+            encode_keys(KeyMap(test::scl_text("!\n12\n12\n100.\n200.\n300.\n400.\n500.\n600.\n700.\n800.\n"
                                    "900.\n1000.\n1100.\n2/1\n"),
                                62, {69, 440.0}));
         for (int k = 0; k < 128; ++k)
@@ -282,7 +272,7 @@ TEST_CASE("a bulk dump is read back to every key's frequency within the resoluti
     CHECK(e.max_error_cents > 0.001); // meantone is not on the grid: the report is not zero
 
     SECTION("keys outside 8.18 .. 13289.66 Hz are reported and left unchanged, not clamped") {
-        const KeyMap wide(scl("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60, {60, 264.0});
+        const KeyMap wide(test::scl_text("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60, {60, 264.0});
         KeyEncoding w = encode_keys(wide);
         // Key 60 - 7*5 = 25 is 264/32 = 8.25 Hz, key 24 (7/4 / 64 * 264 = 7.22 Hz) is below;
         // 264 * 32 = 8448 Hz at key 95, 264 * 7/4 * 32 = 14784 Hz at key 101 is above.
@@ -391,7 +381,7 @@ TEST_CASE("scale/octave offsets of a 12-note tuning are its cents from 12-TET", 
         CHECK_THAT(g[11], WithinAbs(quarter[4], 0.0005)); // B over G is E over C
     }
     SECTION("other tunings are refused with a reason") {
-        const KeyMap seven(scl("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60,
+        const KeyMap seven(test::scl_text("!\nseven\n7\n9/8\n5/4\n4/3\n3/2\n5/3\n7/4\n2/1\n"), 60,
                            {60, 264.0});
         REQUIRE_THROWS_WITH(
             octave_offsets(seven, opt),
@@ -496,7 +486,7 @@ TEST_CASE("scale/octave offset bytes decode to their cents", "[mts]") {
 
     SECTION("an offset outside the form's range is refused naming the note") {
         // 12-TET at A4 = 415 is -101.271 cents from A4 = 440 (REFERENCES.md 8, computed).
-        OctaveOffsets low = octave_offsets(KeyMap(equal_12_exact(), 60, {69, 415.0}), opt);
+        OctaveOffsets low = octave_offsets(KeyMap(test::equal_division(12), 60, {69, 415.0}), opt);
         REQUIRE_THROWS_WITH(
             encode_offsets_2byte(low, {"--mts-octave2", 0, 0}),
             "--mts-octave2: error: the offset of C from 12-TET at A4 = 440 Hz is -101.271 cents, "
@@ -540,4 +530,25 @@ TEST_CASE("the name field is 16 printable ASCII characters padded with spaces", 
         mts_name("caf\xC3\xA9", pos),
         "--name: error: tuning name \"caf\xC3\xA9\" has a character that is not printable ASCII at "
         "position 4; the name field holds plain ASCII only");
+}
+
+TEST_CASE("channel lists name channels 1-16 singly or as ranges", "[mts]") {
+    const SourcePos pos{"--channels", 0, 0};
+    CHECK(parse_channels("1-16", pos) == all_channels);
+    CHECK(parse_channels("1,2,10", pos) == ((1u << 0) | (1u << 1) | (1u << 9)));
+    CHECK(parse_channels("3-5,9", pos) == ((1u << 2) | (1u << 3) | (1u << 4) | (1u << 8)));
+    CHECK(parse_channels("16", pos) == (1u << 15));
+    REQUIRE_THROWS_WITH(parse_channels("0,3", pos), "--channels: error: channel 0 is outside 1..16");
+    REQUIRE_THROWS_WITH(parse_channels("17", pos), "--channels: error: channel 17 is outside 1..16");
+    REQUIRE_THROWS_WITH(parse_channels("9-2", pos), "--channels: error: channel range 9-2 runs backwards");
+    for (const char* bad : {"x", "", ",", "1-", "1--3", "100"})
+        REQUIRE_THROWS_WITH(parse_channels(bad, pos),
+                            std::string("--channels: error: expected channel numbers 1..16 such as "
+                                        "1,2,10 or 1-16, found \"") + bad + "\"");
+}
+
+TEST_CASE("a description becomes a name field of printable ASCII", "[mts]") {
+    CHECK(mts_name_from_description("Quarter-comma meantone") == "Quarter-comma me");
+    CHECK(mts_name_from_description("caf\xC3\xA9") == "caf??");
+    CHECK(mts_name_from_description("") == "terzo");
 }

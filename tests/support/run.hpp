@@ -43,6 +43,11 @@ inline RunResult run(const std::string& command) {
 /// The built `terzo` program followed by arguments.
 inline RunResult run_terzo(const std::string& args) { return run(std::string(TERZO_CLI) + " " + args); }
 
+/// The same, run inside folder `dir` (relative paths in args are relative to it).
+inline RunResult run_terzo_in(const std::filesystem::path& dir, const std::string& args) {
+    return run("cd '" + dir.string() + "' && " + TERZO_CLI + " " + args);
+}
+
 /// A path inside the source tree.
 inline std::string source_path(const std::string& relative) {
     return std::string(TERZO_SOURCE_DIR) + "/" + relative;

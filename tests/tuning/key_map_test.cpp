@@ -5,24 +5,13 @@
 
 #include "core/io/scl.hpp"
 #include "core/tuning/key_map.hpp"
+#include "tests/support/scales.hpp"
 
 using namespace terzo;
 using Catch::Matchers::WithinAbs;
 
 namespace {
 
-Scale scl(const std::string& text) {
-    std::istringstream in(text);
-    return read_scl(in, "test.scl");
-}
-
-// 12-TET with exact degrees 2^(k/12).
-Scale equal_12() {
-    std::vector<Pitch> d;
-    for (int k = 1; k <= 11; ++k)
-        d.push_back(Pitch::from_vector(PrimeVector::prime_power(2, Ratio(k, 12))));
-    return Scale("12-TET", d, Pitch::from_ratio(Ratio(2)));
-}
 
 // Werckmeister III as in REFERENCES.md 2.1: C-G, G-D, D-A and B-F# a quarter of the
 // Pythagorean comma P = 3^12/2^19 narrow, the other fifths pure. q = (2^19/3^12)^(1/4).
@@ -50,7 +39,7 @@ const char* const demo_scl = "! demo\nseven notes\n 7\n 9/8\n 5/4\n 4/3\n 3/2\n 
 } // namespace
 
 TEST_CASE("12-TET at A4 = 440 Hz gives the standard key frequencies", "[key_map]") {
-    KeyMap map(equal_12(), 60, KeyReference{69, 440.0});
+    KeyMap map(test::equal_division(12), 60, KeyReference{69, 440.0});
     // REFERENCES.md 8: 12-TET C4 at A4 = 440 is 261.6256 Hz [CP, computed].
     CHECK_THAT(map.at(60).hz, WithinAbs(261.6256, 5e-5));
     CHECK_THAT(map.root_hz(), WithinAbs(261.6256, 5e-5));
@@ -85,7 +74,7 @@ TEST_CASE("Werckmeister III at A4 = 440 Hz matches the published frequencies", "
 }
 
 TEST_CASE("consecutive keys walk consecutive degrees of a scale of any size", "[key_map]") {
-    KeyMap map(scl(demo_scl), 60, KeyReference{60, 264.0});
+    KeyMap map(test::scl_text(demo_scl), 60, KeyReference{60, 264.0});
     SECTION("upwards the degrees repeat every seven keys, one period higher each time") {
         const char* ratios[] = {"1/1", "9/8", "5/4", "4/3", "3/2",
                                 "5/3", "7/4", "2/1", "9/4", "5/2"};
@@ -118,7 +107,7 @@ TEST_CASE("a named reference pitch is mapped through its key", "[key_map]") {
     const KeyReference key_ref = key_reference(ref);
     CHECK(key_ref.key == 69);
     CHECK(key_ref.hz == 415.0);
-    KeyMap map(equal_12(), 60, key_ref);
+    KeyMap map(test::equal_division(12), 60, key_ref);
     CHECK_THAT(map.at(69).hz, WithinAbs(415.0, 1e-9));
     // REFERENCES.md 8: 12-TET C4 when A4 = 415 is 246.7605 Hz [CP, computed].
     CHECK_THAT(map.root_hz(), WithinAbs(246.7605, 5e-5));
@@ -140,10 +129,10 @@ TEST_CASE("a named reference pitch is mapped through its key", "[key_map]") {
 }
 
 TEST_CASE("keys keep their keyboard names only in 12-note tunings", "[key_map]") {
-    KeyMap twelve(equal_12(), 62, KeyReference{69, 440.0});
+    KeyMap twelve(test::equal_division(12), 62, KeyReference{69, 440.0});
     CHECK(key_note_name(twelve, 60) == "C4");
     CHECK(key_note_name(twelve, 70) == "Bb4");
     CHECK(key_note_name(twelve, 0) == "C-1");
-    KeyMap seven(scl(demo_scl), 60, KeyReference{60, 264.0});
+    KeyMap seven(test::scl_text(demo_scl), 60, KeyReference{60, 264.0});
     CHECK(key_note_name(seven, 60).empty());
 }
