@@ -2,6 +2,7 @@
 
 #include <charconv>
 #include <cmath>
+#include <cstdlib>
 
 namespace terzo {
 
@@ -95,6 +96,24 @@ int parse_pitch_class(std::string_view text, const SourcePos& pos) {
     if (spelled.used != text.size())
         fail(pos, "expected a note name without octave such as C, F# or Bb, found " + quoted(text));
     return spelled.pitch_class();
+}
+
+int parse_fifths_position(std::string_view text, const SourcePos& pos) {
+    Spelled spelled = read_spelled(text, pos);
+    if (spelled.used != text.size())
+        fail(pos, "expected a note name without octave such as C, F# or Bb, found " + quoted(text));
+    // The natural letters F C G D A E B sit at -1..5; 7*position = pitch class (mod 12).
+    static const int natural_position[12] = {0, 0, 2, 0, 4, -1, 0, 1, 0, 3, 0, 5};
+    return natural_position[spelled.natural] + 7 * spelled.accidentals;
+}
+
+std::string fifths_position_name(int position) {
+    static const char* letters[7] = {"F", "C", "G", "D", "A", "E", "B"};
+    int shifted = position + 1; // F = 0
+    int accidentals = floor_div(shifted, 7);
+    std::string name = letters[shifted - 7 * accidentals];
+    name.append(static_cast<std::size_t>(std::abs(accidentals)), accidentals > 0 ? '#' : 'b');
+    return name;
 }
 
 Spelling parse_spelling(std::string_view text, const SourcePos& pos) {

@@ -40,6 +40,11 @@ std::string note_text(const NoteName& n, Spelling spelling = Spelling::mixed);
 NoteName parse_note(std::string_view text, const SourcePos& pos, int default_octave = 4);
 /// Parses a pitch class alone ("C#", "Eb"); an octave digit is an error.
 int parse_pitch_class(std::string_view text, const SourcePos& pos);
+/// Position of a spelled pitch class on the line of fifths, C = 0, G = 1, F = -1, F# = 6,
+/// Eb = -3 (each sharp adds 7, each flat subtracts 7); an octave digit is an error.
+int parse_fifths_position(std::string_view text, const SourcePos& pos);
+/// The spelled name of a line-of-fifths position: 0 -> "C", 8 -> "G#", -3 -> "Eb", 13 -> "B#".
+std::string fifths_position_name(int position);
 /// Parses a spelling name: "sharps", "flats" or "mixed".
 Spelling parse_spelling(std::string_view text, const SourcePos& pos);
 
