@@ -10,6 +10,7 @@
 #include <queue>
 #include <thread>
 
+#include "core/analysis/parallel.hpp"
 #include "core/io/format.hpp"
 #include "core/tuning/temperament.hpp"
 
@@ -293,50 +294,6 @@ private:
     bool stopped_ = false;
 };
 
-/// Runs jobs 0..count-1 on `threads` threads, calling the progress callback from this thread.
-template <class Work>
-void run_parallel(int threads, std::size_t count, const SearchControl& control,
-                  const std::atomic<std::uint64_t>& done, std::uint64_t total, Work work) {
-    std::atomic<std::size_t> next{0};
-    std::mutex m;
-    std::condition_variable cv;
-    int running = threads;
-    std::vector<std::thread> pool;
-    std::exception_ptr error;
-    for (int t = 0; t < threads; ++t) {
-        pool.emplace_back([&, t] {
-            try {
-                for (;;) {
-                    std::size_t job = next.fetch_add(1);
-                    if (job >= count) break;
-                    if (control.cancel && control.cancel->load(std::memory_order_relaxed)) break;
-                    work(t, job);
-                }
-            } catch (...) {
-                std::lock_guard<std::mutex> lock(m);
-                if (!error) error = std::current_exception();
-                next.store(count);
-            }
-            std::lock_guard<std::mutex> lock(m);
-            --running;
-            cv.notify_all();
-        });
-    }
-    {
-        std::unique_lock<std::mutex> lock(m);
-        while (running > 0) {
-            cv.wait_for(lock, std::chrono::milliseconds(std::max(1, control.progress_interval_ms)));
-            if (control.progress && running > 0) {
-                lock.unlock();
-                control.progress({done.load(std::memory_order_relaxed), total});
-                lock.lock();
-            }
-        }
-    }
-    for (auto& th : pool) th.join();
-    if (error) std::rethrow_exception(error);
-}
-
 } // namespace
 
 std::vector<Ratio> parse_fractions(const std::string& text, const std::string& source) {
@@ -434,7 +391,7 @@ CirculatingSearch search_circulating(const CirculatingSpace& space, const CostMo
     workers.reserve(static_cast<std::size_t>(control.threads));
     for (int t = 0; t < control.threads; ++t)
         workers.emplace_back(cost, units, top, result.symmetry_rotations, result.symmetry_mirror, control.cancel, &done);
-    run_parallel(control.threads, jobs.size(), control, done, result.total,
+    detail::run_parallel(control.threads, jobs.size(), control, done, result.total,
                  [&](int t, std::size_t job) { workers[static_cast<std::size_t>(t)].run(jobs[job]); });
 
     std::vector<Entry> all;
@@ -732,7 +689,7 @@ ContinuousSearch search_continuous(const CirculatingSpace& space, const CostMode
     std::atomic<std::uint64_t> done{0};
     SearchControl quiet = control;
     quiet.progress = nullptr;
-    run_parallel(std::min<int>(control.threads, static_cast<int>(std::max<std::size_t>(1, ex.size()))), ex.size(),
+    detail::run_parallel(std::min<int>(control.threads, static_cast<int>(std::max<std::size_t>(1, ex.size()))), ex.size(),
                  quiet, done, ex.size(), [&](int, std::size_t i) {
                      ContinuousResult r = optimise_circulating(cost, ex[i].narrowing);
                      // Keep the start when the optimiser could not beat it (e.g. it left the
