@@ -8,6 +8,8 @@
 namespace terzo::cli {
 
 void add_inspect(CLI::App& app);
+void add_search(CLI::App& app);
+void add_rank(CLI::App& app);
 void add_resultants(CLI::App& app);
 
 } // namespace terzo::cli

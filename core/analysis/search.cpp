@@ -108,6 +108,20 @@ struct WorseOnTop {
     bool operator()(const Entry& a, const Entry& b) const { return better(a, b); }
 };
 
+/// Index tables of the circle's symmetries: rotation r reads fifth (i + r) mod 12 at i;
+/// mirror r reads the circle backwards, fifth (11 - i - r) mod 12.
+struct SymmetryTables {
+    std::array<std::array<std::uint8_t, 12>, 12> rotation{}, mirror{};
+    SymmetryTables() {
+        for (int r = 0; r < 12; ++r)
+            for (int i = 0; i < 12; ++i) {
+                rotation[static_cast<std::size_t>(r)][static_cast<std::size_t>(i)] = static_cast<std::uint8_t>((i + r) % 12);
+                mirror[static_cast<std::size_t>(r)][static_cast<std::size_t>(i)] = static_cast<std::uint8_t>((23 - i - r) % 12);
+            }
+    }
+};
+const SymmetryTables kTables;
+
 /// Per class and circle index: sum of w*|d|, of w*d^2, and the largest |d| (weight > 0).
 struct Sums {
     std::array<double, 3> s1{}, s2{}, mx{};
@@ -128,6 +142,12 @@ public:
             for (int i = 0; i < 12; ++i)
                 w_[static_cast<std::size_t>(k)][static_cast<std::size_t>(i)] = model.interval_weight(static_cast<KeyInterval>(k), pc_of(i));
         leaf_parts_ = !model.cost().beats.empty() || !model.cost().fits.empty();
+        // Only the classes a part or a constraint looks at are summed.
+        for (const auto& p : model.cost().deviations) needed_[static_cast<std::size_t>(p.interval)] = true;
+        for (int k = 0; k < 3; ++k) needed_[static_cast<std::size_t>(k)] = needed_[static_cast<std::size_t>(k)] || std::isfinite(limit_[static_cast<std::size_t>(k)]);
+        needed_[0] = needed_[0] || no_wide_;
+        last_.assign(static_cast<std::size_t>(units.umax - units.umin + 1), -1);
+        for (std::size_t j = 0; j < units.u.size(); ++j) last_[static_cast<std::size_t>(units.u[j] - units.umin)] = static_cast<int>(j);
     }
 
     /// Runs the subtree under a prefix of `length` choices.
@@ -136,6 +156,11 @@ public:
         for (std::uint8_t j : prefix) rem -= units_.u[j];
         sums_[0] = Sums{};
         int length = static_cast<int>(prefix.size());
+        for (std::uint8_t j : prefix)
+            if (rotations_ && j > prefix[0]) { // see descend
+                skip(units_.completions(12 - length, rem));
+                return;
+            }
         for (int i = 0; i < length; ++i) {
             choice_[static_cast<std::size_t>(i)] = prefix[static_cast<std::size_t>(i)];
             t_[static_cast<std::size_t>(i)] = units_.cents[prefix[static_cast<std::size_t>(i)]];
@@ -167,14 +192,16 @@ private:
     }
 
     bool add(Sums& s, int k, int i, double d) {
+        auto kk = static_cast<std::size_t>(k);
+        if (!needed_[kk]) return true;
         double ad = std::fabs(d);
-        if (ad > limit_[static_cast<std::size_t>(k)] + 1e-9) return false;
+        if (ad > limit_[kk] + 1e-9) return false;
         if (k == 0 && no_wide_ && d > 1e-9) return false;
-        double w = w_[static_cast<std::size_t>(k)][static_cast<std::size_t>(i)];
+        double w = w_[kk][static_cast<std::size_t>(i)];
         if (w > 0) {
-            s.s1[static_cast<std::size_t>(k)] += w * ad;
-            s.s2[static_cast<std::size_t>(k)] += w * d * d;
-            if (ad > s.mx[static_cast<std::size_t>(k)]) s.mx[static_cast<std::size_t>(k)] = ad;
+            s.s1[kk] += w * ad;
+            s.s2[kk] += w * d * d;
+            if (ad > s.mx[kk]) s.mx[kk] = ad;
         }
         return true;
     }
@@ -187,10 +214,11 @@ private:
     // completed at the last fifth.
     bool step(int i, Sums& s) {
         const auto& t = t_;
-        auto at = [&](int j) { return t[static_cast<std::size_t>(((j % 12) + 12) % 12)]; };
-        if (!add(s, 0, i, -at(i))) return false;
-        if (i >= 3 && !add(s, 1, i - 3, S - (at(i - 3) + at(i - 2) + at(i - 1) + at(i)))) return false;
-        if (i >= 2 && !add(s, 2, (i + 1) % 12, -S + (at(i - 2) + at(i - 1) + at(i)))) return false;
+        auto at = [&](int j) { return t[static_cast<std::size_t>((j + 12) % 12)]; };
+        const double* p = t.data() + i;
+        if (!add(s, 0, i, -p[0])) return false;
+        if (i >= 3 && !add(s, 1, i - 3, S - (p[-3] + p[-2] + p[-1] + p[0]))) return false;
+        if (i >= 2 && !add(s, 2, (i + 1) % 12, -S + (p[-2] + p[-1] + p[0]))) return false;
         if (i == 11) {
             for (int j = 9; j < 12; ++j)
                 if (!add(s, 1, j, S - (at(j) + at(j + 1) + at(j + 2) + at(j + 3)))) return false;
@@ -206,43 +234,76 @@ private:
             return;
         }
         int left = 11 - i;
-        for (std::size_t j = 0; j < units_.u.size() && !stopped_; ++j) {
+        std::size_t m = units_.u.size();
+        if (i == 11) {
+            // The last fraction is whatever the comma still needs, if the set has it.
+            long long need = remaining - units_.umin;
+            if (need < 0 || need >= static_cast<long long>(last_.size()) || last_[static_cast<std::size_t>(need)] < 0) return;
+            std::size_t j = static_cast<std::size_t>(last_[static_cast<std::size_t>(need)]);
+            if (rotations_ && j > choice_[0]) { // a rotation starting here would be larger
+                skip(1);
+                return;
+            }
+            visit(i, j, 0, 0);
+            return;
+        }
+        for (std::size_t j = 0; j < m && !stopped_; ++j) {
             long long rem = remaining - units_.u[j];
             if (rem < left * units_.umin || rem > left * units_.umax) continue;
-            choice_[static_cast<std::size_t>(i)] = static_cast<std::uint8_t>(j);
-            t_[static_cast<std::size_t>(i)] = units_.cents[j];
-            Sums& s = sums_[static_cast<std::size_t>(i + 1)];
-            s = sums_[static_cast<std::size_t>(i)];
-            if (!step(i, s)) {
-                if (i == 11) ++rejected;
+            // With rotations removed only choices led by their largest fraction can be
+            // canonical: a later, larger fraction starts a larger rotation.
+            if (rotations_ && i > 0 && j > choice_[0]) {
                 skip(units_.completions(left, rem));
                 continue;
             }
-            if (i == 11) leaf(s);
-            else descend(i + 1, rem);
+            visit(i, j, left, rem);
         }
+    }
+
+    void visit(int i, std::size_t j, int left, long long rem) {
+        choice_[static_cast<std::size_t>(i)] = static_cast<std::uint8_t>(j);
+        t_[static_cast<std::size_t>(i)] = units_.cents[j];
+        Sums& s = sums_[static_cast<std::size_t>(i + 1)];
+        s = sums_[static_cast<std::size_t>(i)];
+        if (!step(i, s)) {
+            if (i == 11) ++rejected;
+            skip(units_.completions(left, rem));
+            return;
+        }
+        if (i == 11) leaf(s);
+        else descend(i + 1, rem);
     }
 
     /// True when the choice is the canonical copy (the largest in fifth-by-fifth order among
     /// its rotations, and mirror images when allowed); sets the number of distinct copies.
+    /// Most choices lose to a rotation within a comparison or two, so the copies are only
+    /// built for the canonical ones.
     bool canonical(int& copies) const {
         const auto& a = choice_;
-        std::array<std::array<std::uint8_t, 12>, 24> images;
-        int n = 0;
+        auto loses_to = [&](const std::array<std::uint8_t, 12>& index) {
+            for (std::size_t i = 0; i < 12; ++i) {
+                std::uint8_t x = a[index[i]];
+                if (x != a[i]) return x > a[i];
+            }
+            return false;
+        };
+        for (int r = 1; r < 12; ++r)
+            if (loses_to(kTables.rotation[static_cast<std::size_t>(r)])) return false;
+        if (mirror_)
+            for (int r = 0; r < 12; ++r)
+                if (loses_to(kTables.mirror[static_cast<std::size_t>(r)])) return false;
+        // Orbit and stabiliser: the copies are the group's size divided by the number of
+        // symmetries that map the choice onto itself.
+        int fixed_by = 0;
         for (int r = 0; r < 12; ++r) {
-            std::array<std::uint8_t, 12> b;
-            for (int i = 0; i < 12; ++i) b[static_cast<std::size_t>(i)] = a[static_cast<std::size_t>((i + r) % 12)];
-            if (b > a) return false;
-            images[static_cast<std::size_t>(n++)] = b;
-            if (mirror_) {
-                std::array<std::uint8_t, 12> m;
-                for (int i = 0; i < 12; ++i) m[static_cast<std::size_t>(i)] = a[static_cast<std::size_t>((23 - i - r) % 12)];
-                if (m > a) return false;
-                images[static_cast<std::size_t>(n++)] = m;
+            for (int m = 0; m < (mirror_ ? 2 : 1); ++m) {
+                const auto& index = m ? kTables.mirror[static_cast<std::size_t>(r)] : kTables.rotation[static_cast<std::size_t>(r)];
+                bool same = true;
+                for (std::size_t i = 0; i < 12 && same; ++i) same = a[index[i]] == a[i];
+                fixed_by += same;
             }
         }
-        std::sort(images.begin(), images.begin() + n);
-        copies = static_cast<int>(std::unique(images.begin(), images.begin() + n) - images.begin());
+        copies = (mirror_ ? 24 : 12) / fixed_by;
         return true;
     }
 
@@ -285,6 +346,8 @@ private:
     const std::atomic<bool>* cancel_;
     std::atomic<std::uint64_t>* shared_done_;
     std::array<double, 3> limit_{};
+    std::array<bool, 3> needed_{};
+    std::vector<int> last_; // fraction index by units - umin, or -1
     bool no_wide_ = false, leaf_parts_ = false;
     std::array<std::array<double, 12>, 3> w_{};
     std::array<double, 12> t_{};
