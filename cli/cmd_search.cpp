@@ -107,7 +107,7 @@ nlohmann::ordered_json parts_json(const CostBreakdown& b) {
 
 /// Writes each scale as DIR/<stem>-<rank>.scl; checks every target first so that a refused
 /// overwrite leaves nothing written.
-std::string write_scales(const std::string& dir, const std::string& stem, const std::vector<Scale>& scales, bool force) {
+std::vector<std::string> write_scales(const std::string& dir, const std::string& stem, const std::vector<Scale>& scales, bool force) {
     namespace fs = std::filesystem;
     std::error_code ec;
     fs::create_directories(dir, ec);
@@ -119,10 +119,26 @@ std::string write_scales(const std::string& dir, const std::string& stem, const 
         if (!force && fs::exists(paths.back()))
             fail({paths.back().string(), 0, 0}, "the file exists; pass --force to replace it");
     }
-    for (std::size_t i = 0; i < scales.size(); ++i)
+    std::vector<std::string> written;
+    for (std::size_t i = 0; i < scales.size(); ++i) {
         write_file_atomically(paths[i], [&](std::ostream& o) { write_scl(o, scales[i], paths[i].filename().string()); },
                               force ? Overwrite::allow : Overwrite::refuse);
-    return "wrote " + std::to_string(scales.size()) + " .scl file" + (scales.size() == 1 ? "" : "s") + " to " + dir + "\n";
+        written.push_back(paths[i].string());
+    }
+    return written;
+}
+
+/// Writes the scales when asked (before anything is printed, so a refusal leaves stdout
+/// empty) and returns the line or JSON entry that reports them.
+void write_and_report(const SearchArgs& a, const std::string& stem, const std::vector<Scale>& scales,
+                      nlohmann::ordered_json* json, std::string& text) {
+    if (a.write_dir.empty()) return;
+    std::vector<std::string> written = write_scales(a.write_dir, stem, scales, a.force);
+    if (json) {
+        (*json)["scl_files"] = written;
+        return;
+    }
+    text = "wrote " + std::to_string(written.size()) + " .scl file" + (written.size() == 1 ? "" : "s") + " to " + a.write_dir + "\n";
 }
 
 void run_circulating(const SearchArgs& a, bool continuous) {
@@ -148,8 +164,16 @@ void run_circulating(const SearchArgs& a, bool continuous) {
     for (const Ratio& f : space.fractions) fr += (fr.empty() ? "" : ", ") + fraction_text(f);
     std::ostringstream out;
     std::vector<Scale> scales;
+    if (!continuous)
+        for (std::size_t i = 0; i < ex.results.size(); ++i)
+            scales.push_back(circulating_scale(ex.results[i].fractions, "terzo search circulating, rank " + std::to_string(i + 1)));
+    else
+        for (std::size_t i = 0; i < co.results.size(); ++i)
+            scales.push_back(narrowings_scale(co.results[i].narrowing, "terzo search continuous, rank " + std::to_string(i + 1)));
+    std::string written;
     if (a.json) {
         nlohmann::ordered_json j;
+        write_and_report(a, continuous ? "continuous" : "circulating", scales, &j, written);
         j["space"] = continuous ? "continuous" : "circulating";
         j["fractions"] = nlohmann::ordered_json::array();
         for (const Ratio& f : space.fractions) j["fractions"].push_back(fraction_text(f));
@@ -189,6 +213,7 @@ void run_circulating(const SearchArgs& a, bool continuous) {
         }
         out << j.dump(2) << '\n';
     } else {
+        write_and_report(a, continuous ? "continuous" : "circulating", scales, nullptr, written);
         out << "circulating temperaments: the fifths C-G, G-D … F-C each narrowed by " << fr
             << " of the Pythagorean comma, together one comma\n"
             << describe_cost(model.cost()) << ex.total << " distributions";
@@ -218,7 +243,6 @@ void run_circulating(const SearchArgs& a, bool continuous) {
                 row.push_back(std::to_string(r.copies));
                 for (const Ratio& f : r.fractions) row.push_back(fraction_text(f));
                 t.add(row);
-                scales.push_back(circulating_scale(r.fractions, "terzo search circulating, rank " + std::to_string(i + 1)));
             }
             write_text(out, t);
             out << "\ncells under the fifths: fraction of the Pythagorean comma by which that fifth is narrowed;\n"
@@ -231,14 +255,13 @@ void run_circulating(const SearchArgs& a, bool continuous) {
                 for (double n : r.narrowing) row.push_back(fixed(n, 3));
                 row.push_back(fixed(r.start_cost, 4));
                 t.add(row);
-                scales.push_back(narrowings_scale(r.narrowing, "terzo search continuous, rank " + std::to_string(i + 1)));
             }
             write_text(out, t);
             out << "\ncells under the fifths: cents by which that fifth is narrowed; start: cost of the exhaustive\n"
                    "result the optimiser started from; ! marks a result that breaks a constraint\n";
         }
     }
-    if (!a.write_dir.empty()) out << write_scales(a.write_dir, continuous ? "continuous" : "circulating", scales, a.force);
+    out << written;
     std::cout << out.str() << std::flush;
     if (cancelled) {
         std::cerr << "terzo search: interrupted; the results above are the best found before stopping\n";
@@ -274,8 +297,10 @@ void run_rank2(const SearchArgs& a) {
         scales.push_back(generator_chain(Pitch::from_cents(results[i].generator), a.generators, 0, period,
                                          "terzo search rank2, rank " + std::to_string(i + 1) + ": generator " +
                                              fixed(results[i].generator, 6) + " c"));
+    std::string written;
     if (a.json) {
         nlohmann::ordered_json j;
+        write_and_report(a, "rank2", scales, &j, written);
         j["space"] = "rank2";
         j["period_cents"] = period.cents();
         j["generators"] = a.generators;
@@ -290,6 +315,7 @@ void run_rank2(const SearchArgs& a) {
         }
         out << j.dump(2) << '\n';
     } else {
+        write_and_report(a, "rank2", scales, nullptr, written);
         out << "rank-2 chains: " << a.generators << " generators up from the tonic, period " << period.str() << " ("
             << fixed(period.cents(), 3) << " c)\ncost: " << statistic_name(cost.statistic) << " of the errors of "
             << target_header(cost) << "\n\n";
@@ -307,7 +333,7 @@ void run_rank2(const SearchArgs& a) {
         write_text(out, t);
         out << "\ncells: error in cents of the best approximation in the chain (generators g, periods p)\n";
     }
-    if (!a.write_dir.empty()) out << write_scales(a.write_dir, "rank2", scales, a.force);
+    out << written;
     std::cout << out.str();
 }
 
@@ -321,8 +347,10 @@ void run_equal(const SearchArgs& a) {
         scales.push_back(equal_division(results[i].steps, period,
                                         "terzo search equal, rank " + std::to_string(i + 1) + ": " +
                                             std::to_string(results[i].steps) + " equal divisions of " + period.str()));
+    std::string written;
     if (a.json) {
         nlohmann::ordered_json j;
+        write_and_report(a, "equal", scales, &j, written);
         j["space"] = "equal";
         j["period_cents"] = period.cents();
         j["max_steps"] = a.max_steps;
@@ -337,6 +365,7 @@ void run_equal(const SearchArgs& a) {
         }
         out << j.dump(2) << '\n';
     } else {
+        write_and_report(a, "equal", scales, nullptr, written);
         out << "equal divisions of " << period.str() << " into 1 to " << a.max_steps << " steps\ncost: "
             << statistic_name(cost.statistic) << " of the errors of " << target_header(cost) << "\n\n";
         Table t;
@@ -352,7 +381,7 @@ void run_equal(const SearchArgs& a) {
         write_text(out, t);
         out << "\ncells: error in cents of the nearest step (its number)\n";
     }
-    if (!a.write_dir.empty()) out << write_scales(a.write_dir, "equal", scales, a.force);
+    out << written;
     std::cout << out.str();
 }
 

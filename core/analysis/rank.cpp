@@ -2,11 +2,13 @@
 
 #include <algorithm>
 #include <cctype>
+#include <cmath>
 #include <filesystem>
 #include <optional>
 
 #include "core/analysis/combination.hpp"
 #include "core/analysis/compare.hpp"
+#include "core/analysis/cost.hpp"
 #include "core/analysis/fit.hpp"
 #include "core/analysis/keyboard.hpp"
 #include "core/analysis/parallel.hpp"
@@ -106,6 +108,41 @@ double measure_tuning(const Scale& scale, RankMetric metric, const std::string& 
         // reference, default tone options.
         Keyboard kb(scale);
         return fit(keyboard_tones(kb, ToneOptions{})).rms_cents;
+    }
+    if (scale.size() == 12 && scale.period() == Pitch::from_ratio(Ratio(2))) {
+        // The same figures as the key comparison's summary (cost_test.cpp checks that they
+        // agree), from the twelve positions in doubles: ranking needs no exact purity test.
+        static const CostModel model = [] {
+            Cost c;
+            c.deviations = {{KeyInterval::fifth, Statistic::mean, 1}};
+            return CostModel(c);
+        }();
+        KeyDeviations d = key_deviations(positions_of(scale));
+        switch (metric) {
+        case RankMetric::mean_fifth:
+            return model.statistic(KeyInterval::fifth, Statistic::mean, d.fifth);
+        case RankMetric::worst_fifth:
+            return model.statistic(KeyInterval::fifth, Statistic::worst, d.fifth);
+        case RankMetric::mean_major_third:
+            return model.statistic(KeyInterval::major_third, Statistic::mean, d.major_third);
+        case RankMetric::worst_major_third:
+            return model.statistic(KeyInterval::major_third, Statistic::worst, d.major_third);
+        case RankMetric::mean_minor_third:
+            return model.statistic(KeyInterval::minor_third, Statistic::mean, d.minor_third);
+        case RankMetric::worst_minor_third:
+            return model.statistic(KeyInterval::minor_third, Statistic::worst, d.minor_third);
+        case RankMetric::wolves:
+        case RankMetric::fit:
+            break;
+        }
+        int wolves = 0; // compare.hpp's rule: beyond wolf_fifth_cents / wolf_third_cents
+        for (int pc = 0; pc < 12; ++pc) {
+            auto i = static_cast<std::size_t>(pc);
+            wolves += std::fabs(d.fifth[i]) > wolf_fifth_cents;
+            wolves += std::fabs(d.major_third[i]) > wolf_third_cents;
+            wolves += std::fabs(d.minor_third[i]) > wolf_third_cents;
+        }
+        return wolves;
     }
     CompareSummary s = compare_keys(scale, CompareOptions{}, name).summary;
     switch (metric) {

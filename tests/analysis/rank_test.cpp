@@ -98,3 +98,24 @@ TEST_CASE("rank metric names are parsed and unknown ones rejected", "[rank]") {
     CHECK(measure_tuning(test::equal_12(), RankMetric::wolves, "e") == 0);
     CHECK_THROWS_WITH(rank_tunings({}, RankMetric::fit, threads(0)), "--threads: error: thread count 0 is outside 1..64");
 }
+
+TEST_CASE("key metrics of 12-note octave tunings agree with the key comparison", "[rank]") {
+    // measure_tuning takes a shortcut through doubles for period 2/1; compare_keys is the
+    // exact route. A scale stretched to 2401/1200 of an octave takes compare_keys itself.
+    std::vector<Scale> scales = {test::equal_12(), test::werckmeister_3(), test::quarter_comma(), test::pythagorean()};
+    std::vector<Pitch> degrees;
+    for (int i = 1; i < 12; ++i) degrees.push_back(Pitch::from_cents(i * 100.5 + (i % 3) * 7.0));
+    scales.push_back(Scale("cents", degrees, Pitch::from_ratio(Ratio(2))));
+    scales.push_back(Scale("stretched", degrees, Pitch::from_cents(1206)));
+    for (const Scale& s : scales) {
+        CompareSummary c = compare_keys(s, {}, "x").summary;
+        INFO(s.description());
+        CHECK(measure_tuning(s, RankMetric::mean_fifth, "x") == Approx(c.mean_fifth).margin(1e-9));
+        CHECK(measure_tuning(s, RankMetric::worst_fifth, "x") == Approx(c.worst_fifth).margin(1e-9));
+        CHECK(measure_tuning(s, RankMetric::mean_major_third, "x") == Approx(c.mean_major_third).margin(1e-9));
+        CHECK(measure_tuning(s, RankMetric::worst_major_third, "x") == Approx(c.worst_major_third).margin(1e-9));
+        CHECK(measure_tuning(s, RankMetric::mean_minor_third, "x") == Approx(c.mean_minor_third).margin(1e-9));
+        CHECK(measure_tuning(s, RankMetric::worst_minor_third, "x") == Approx(c.worst_minor_third).margin(1e-9));
+        CHECK(measure_tuning(s, RankMetric::wolves, "x") == static_cast<double>(c.wolves.size()));
+    }
+}
