@@ -19,7 +19,7 @@ void add_rank(CLI::App& app) {
         std::vector<std::string> inputs;
         std::string by = "worst-major-third";
         int threads = 0;
-        bool json = false, quiet = false;
+        bool json = false, quiet = false, list_skipped = false;
     };
     auto a = std::make_shared<Args>();
     cmd->add_option("FILES", a->inputs, ".scl files or folders")->required();
@@ -27,6 +27,7 @@ void add_rank(CLI::App& app) {
     cmd->add_option("--threads", a->threads, "threads (default: one per core)");
     cmd->add_flag("--json", a->json, "print one JSON object (keys in the README)");
     cmd->add_flag("--quiet", a->quiet, "no progress on stderr");
+    cmd->add_flag("--list-skipped", a->list_skipped, "name each tuning the metric does not apply to (e.g. not 12 notes)");
     cmd->callback([a] {
         RankMetric metric = parse_rank_metric(a->by, "--by");
         InterruptScope interrupt;
@@ -49,6 +50,8 @@ void add_rank(CLI::App& app) {
                                        {"notes", r.entries[i].notes}, {"description", r.entries[i].description}});
             j["failed"] = nlohmann::ordered_json::array();
             for (const auto& f : r.failures) j["failed"].push_back({{"path", f.path}, {"error", f.message}});
+            j["skipped"] = nlohmann::ordered_json::array();
+            for (const auto& f : r.skipped) j["skipped"].push_back({{"path", f.path}, {"reason", f.message}});
             j["cancelled"] = r.cancelled;
             out << j.dump(2) << '\n';
         } else if (!r.entries.empty()) {
@@ -63,8 +66,17 @@ void add_rank(CLI::App& app) {
             write_text(out, t);
         }
         std::cout << out.str() << std::flush;
-        if (!a->json)
+        if (!a->json) {
             for (const auto& f : r.failures) std::cerr << f.message << '\n';
+            if (a->list_skipped)
+                for (const auto& f : r.skipped) std::cerr << f.message << '\n';
+            if (!r.skipped.empty())
+                std::cerr << "terzo rank: " << r.skipped.size() << " tuning" << (r.skipped.size() == 1 ? "" : "s")
+                          << " skipped: " << rank_metric_name(metric) << " does not apply to "
+                          << (r.skipped.size() == 1 ? "it" : "them")
+                          << (metric == RankMetric::fit ? "" : " (key metrics need 12 notes; --by fit ranks any size)")
+                          << (a->list_skipped ? "" : "; --list-skipped names them") << "\n";
+        }
         if (r.cancelled) std::cerr << "terzo rank: interrupted; the ranking above covers the files read before stopping\n";
         if (!r.failures.empty())
             std::cerr << "terzo rank: " << r.failures.size() << " could not be ranked, " << r.entries.size() << " ranked\n";

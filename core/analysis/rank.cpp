@@ -173,16 +173,23 @@ Ranking rank_tunings(const std::vector<std::string>& arguments, RankMetric metri
     std::vector<std::string> files = collect_tunings(arguments, early);
     r.files = files.size();
     std::vector<std::optional<RankEntry>> entries(files.size());
-    std::vector<std::optional<RankFailure>> failures(files.size());
+    std::vector<std::optional<RankFailure>> failures(files.size()), skipped(files.size());
     std::atomic<std::uint64_t> done{0};
     detail::run_parallel(control.threads, files.size(), control, done, files.size(), [&](int, std::size_t i) {
+        std::optional<Scale> s;
         try {
-            Scale s = read_scl_file(files[i]);
-            entries[i] = RankEntry{files[i], s.description(), s.size(), measure_tuning(s, metric, files[i])};
+            s = read_scl_file(files[i]);
         } catch (const InputError& e) {
             failures[i] = RankFailure{files[i], e.what()};
         } catch (const std::exception& e) {
             failures[i] = RankFailure{files[i], files[i] + ": error: " + e.what()};
+        }
+        if (s) {
+            try {
+                entries[i] = RankEntry{files[i], s->description(), s->size(), measure_tuning(*s, metric, files[i])};
+            } catch (const InputError& e) {
+                skipped[i] = RankFailure{files[i], e.what()};
+            }
         }
         done.fetch_add(1, std::memory_order_relaxed);
     });
@@ -191,7 +198,8 @@ Ranking rank_tunings(const std::vector<std::string>& arguments, RankMetric metri
     for (std::size_t i = 0; i < files.size(); ++i) {
         if (entries[i]) r.entries.push_back(std::move(*entries[i]));
         if (failures[i]) r.failures.push_back(std::move(*failures[i]));
-        visited += entries[i] || failures[i];
+        if (skipped[i]) r.skipped.push_back(std::move(*skipped[i]));
+        visited += entries[i] || failures[i] || skipped[i];
     }
     r.cancelled = visited < files.size();
     std::stable_sort(r.entries.begin(), r.entries.end(), [](const RankEntry& a, const RankEntry& b) {

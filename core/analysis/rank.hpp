@@ -45,7 +45,8 @@ struct RankFailure {
 };
 struct Ranking {
     std::vector<RankEntry> entries;    ///< best first; ties by path
-    std::vector<RankFailure> failures; ///< in path order
+    std::vector<RankFailure> failures; ///< unreadable, in path order
+    std::vector<RankFailure> skipped;  ///< read, but the metric does not apply (e.g. not 12 notes)
     std::size_t files = 0;             ///< files found
     bool cancelled = false;
 };

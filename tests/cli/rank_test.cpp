@@ -41,6 +41,12 @@ TEST_CASE("terzo rank ranks a folder and exits 0 when every file was read", "[ra
     CHECK(j["ranked"][0]["value"].get<double>() == Approx(21.506290).margin(1e-6));
     CHECK(j["ranked"][1]["value"].get<double>() == Approx(23.460010).margin(1e-6));
     CHECK(j["failed"].empty());
+    // A readable tuning the metric does not apply to is skipped, not an error: exit 0.
+    save_text(dir / "seven.scl", "seven\n 7\n 9/8\n 5/4\n 4/3\n 3/2\n 5/3\n 15/8\n 2/1\n");
+    auto s = run_terzo("rank " + dir.string() + " --quiet");
+    CHECK(s.status == 0);
+    CHECK(s.err == "terzo rank: 1 tuning skipped: worst-major-third does not apply to it (key metrics need 12 notes; "
+                   "--by fit ranks any size); --list-skipped names them\n");
     std::filesystem::remove_all(dir);
 }
 
