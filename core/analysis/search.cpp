@@ -774,7 +774,7 @@ ContinuousSearch search_continuous(const CirculatingSpace& space, const CostMode
         if (a.breakdown.total != b.breakdown.total) return a.breakdown.total < b.breakdown.total;
         return a.narrowing > b.narrowing;
     });
-    // Starts that converge to the same temperament (within 1e-6 c, in any rotation when the
+    // Starts that converge to the same temperament (within 0.001 c, in any rotation when the
     // cost allows) are reported once.
     bool rot = cost.transposition_invariant();
     for (auto& r : results) {
@@ -783,7 +783,7 @@ ContinuousSearch search_continuous(const CirculatingSpace& space, const CostMode
             for (int s = 0; s < (rot ? 12 : 1) && !seen; ++s) {
                 bool same = true;
                 for (std::size_t i = 0; i < 12 && same; ++i)
-                    same = std::fabs(r.narrowing[i] - q.narrowing[(i + static_cast<std::size_t>(s)) % 12]) < 1e-6;
+                    same = std::fabs(r.narrowing[i] - q.narrowing[(i + static_cast<std::size_t>(s)) % 12]) < 1e-3;
                 seen = same;
             }
         }
