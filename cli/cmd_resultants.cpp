@@ -1,5 +1,4 @@
 #include <iostream>
-#include <sstream>
 
 #include "cli/commands.hpp"
 #include "core/analysis/report.hpp"
@@ -20,7 +19,7 @@ void add_resultants(CLI::App& app) {
         bool json = false, csv = false;
     };
     auto a = std::make_shared<Args>();
-    cmd->add_option("TUNING", a->tuning, "A .scl file")->required();
+    cmd->add_option("TUNING", a->tuning, tuning_help)->required();
     cmd->add_option("--ref-hz", a->ref_hz, "Frequency of degree 0 in the lowest period (default 261.6255653, C4)");
     cmd->add_option("--span", a->span, "Periods the keyboard spans, 1 to 11 (default 1)");
     cmd->add_option("--order", a->order, "Highest order |a|+|b| of a term, 2 to 12 (default 3)");
@@ -46,14 +45,14 @@ void add_resultants(CLI::App& app) {
             r.dyads = keyboard_tones(kb, opt);
         }
         r.fit = fit(r.dyads);
-        std::ostringstream out;
+        // Everything that can fail has run; the report is written straight out, dyad by dyad,
+        // so up to max_tones tones never need a second copy as one string or JSON tree.
         if (a->json)
-            out << resultants_json(r).dump(2) << '\n';
+            write_resultants_json(std::cout, r);
         else if (a->csv)
-            write_csv(out, tones_table(r.dyads));
+            write_tones_csv(std::cout, r.dyads);
         else
-            out << resultants_text(r);
-        std::cout << out.str();
+            write_resultants_text(std::cout, r);
     });
 }
 

@@ -7,9 +7,16 @@
 
 namespace terzo::cli {
 
+/// Help text of every TUNING argument.
+inline constexpr const char* tuning_help = "A .scl file or an inline recipe such as \"meantone 1/4\" (quote it)";
+
 void add_inspect(CLI::App& app);
 void add_search(CLI::App& app);
 void add_rank(CLI::App& app);
 void add_resultants(CLI::App& app);
+void add_sheet(CLI::App& app);
+void add_compare(CLI::App& app);
+void add_render(CLI::App& app);
+void add_export(CLI::App& app);
 
 } // namespace terzo::cli

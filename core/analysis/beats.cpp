@@ -48,8 +48,9 @@ Beat beat(const Pitch& interval, double f_low, const CheckedInterval& against) {
             b.cents = 0;
             return b;
         }
-    } else if (b.cents == 0) {
-        return b; // cents-only, and its cents equal the ratio's: pure as far as it is known
+    } else if (std::fabs(b.cents) <= cents_only_pure_tolerance) {
+        b.hz = 0;
+        return b; // pure as far as a cents-only value can tell; `exact` stays false
     }
     // Exact but unequal: the sign of the double deviation is trusted, as it can only be
     // wrong within ~1e-12 cents of pure, where either word describes the same sound.

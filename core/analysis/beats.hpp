@@ -33,18 +33,22 @@ const CheckedInterval& octave_interval();
 
 /// One interval's beating.
 struct Beat {
-    double hz = 0;        ///< beats per second, |q*f_high - p*f_low|, never negative
-    double cents = 0;     ///< size of the interval minus the pure ratio, in cents
+    double hz = 0;    ///< beats per second, |q*f_high - p*f_low|, never negative
+    double cents = 0; ///< size of the interval minus the pure ratio, in cents
     Tempering tempering = Tempering::pure;
-    bool exact = false;   ///< true when purity was decided exactly (both pitches exact)
+    bool exact = false; ///< true when purity was decided exactly (both pitches exact)
 };
 
 /// |q*f_high - p*f_low| for tones f_low, f_high in Hz (any order of size is allowed).
 double beat_rate(double f_low, double f_high, int p, int q);
 
+/// A cents-only interval this close to its pure ratio (in cents) counts as pure, with
+/// Beat::exact false: the rounding of a value typed to four decimals, as in a .scl file.
+constexpr double cents_only_pure_tolerance = 0.00005;
+
 /// The beat of an interval (the upper note over the lower, as a Pitch) whose lower note
 /// sounds at f_low Hz, against the pure ratio p/q. Pure means exactly equal when the
-/// interval is exact; a cents-only interval is pure only when its cents equal the ratio's.
+/// interval is exact; a cents-only interval is pure within cents_only_pure_tolerance.
 Beat beat(const Pitch& interval, double f_low, const CheckedInterval& against);
 
 } // namespace terzo
