@@ -80,8 +80,8 @@ void add_rank(CLI::App& app) {
         if (r.cancelled) std::cerr << "terzo rank: interrupted; the ranking above covers the files read before stopping\n";
         if (!r.failures.empty())
             std::cerr << "terzo rank: " << r.failures.size() << " could not be ranked, " << r.entries.size() << " ranked\n";
-        if (r.cancelled) throw CLI::RuntimeError(130);
-        if (!r.failures.empty()) throw CLI::RuntimeError(1);
+        if (r.cancelled) throw ExitStatus{130};
+        if (!r.failures.empty()) throw ExitStatus{1};
     });
 }
 

@@ -37,8 +37,6 @@ std::string statistic_name(Statistic s) {
 
 namespace {
 
-std::string quoted(std::string_view s) { return "\"" + std::string(s) + "\""; }
-
 std::vector<std::string_view> split(std::string_view text, char sep) {
     std::vector<std::string_view> out;
     std::size_t start = 0;

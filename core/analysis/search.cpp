@@ -26,8 +26,6 @@ constexpr double kInf = std::numeric_limits<double>::infinity();
 /// Pitch class reached after i fifths from C: fifth i of the circle starts there.
 constexpr int pc_of(int i) { return 7 * i % 12; }
 
-std::string in_quotes(const std::string& s) { return "\"" + s + "\""; }
-
 void check_control(const SearchControl& control, std::size_t top) {
     if (control.threads < 1 || control.threads > max_search_threads)
         fail({"--threads", 0, 0}, "thread count " + std::to_string(control.threads) + " is outside 1..64");
@@ -803,7 +801,7 @@ TargetInterval parse_target(const std::string& text, const std::string& source) 
         char* end = nullptr;
         double v = std::strtod(w.c_str(), &end);
         if (w.empty() || *end != '\0' || !std::isfinite(v) || v < 0 || v > max_part_weight)
-            fail({source, 1, static_cast<int>(star) + 2}, "expected a weight from 0 to 1000000 after '*', found " + in_quotes(w));
+            fail({source, 1, static_cast<int>(star) + 2}, "expected a weight from 0 to 1000000 after '*', found " + terzo::quoted(w));
         t.weight = v;
         rest = rest.substr(0, star);
     }
@@ -813,12 +811,12 @@ TargetInterval parse_target(const std::string& text, const std::string& source) 
         char* end = nullptr;
         long v = std::strtol(g.c_str(), &end, 10);
         if (g.empty() || *end != '\0' || v < -max_chain_generators || v > max_chain_generators)
-            fail({source, 1, static_cast<int>(eq) + 2}, "expected a generator count from -200 to 200 after '=', found " + in_quotes(g));
+            fail({source, 1, static_cast<int>(eq) + 2}, "expected a generator count from -200 to 200 after '=', found " + terzo::quoted(g));
         t.generators = static_cast<int>(v);
         rest = rest.substr(0, eq);
     }
     t.ratio = parse_ratio(rest, {source, 1, 1});
-    if (t.ratio <= Ratio(0)) fail({source, 1, 1}, "a target interval must be a positive ratio, found " + in_quotes(rest));
+    if (t.ratio <= Ratio(0)) fail({source, 1, 1}, "a target interval must be a positive ratio, found " + terzo::quoted(rest));
     return t;
 }
 
