@@ -125,7 +125,8 @@ struct Sums {
     std::array<double, 3> s1{}, s2{}, mx{};
 };
 
-class Enumerator {
+// Aligned so that two threads' enumerators never share a cache line.
+class alignas(64) Enumerator {
 public:
     Enumerator(const CostModel& model, const Units& units, std::size_t top, bool rotations, bool mirror,
                const std::atomic<bool>* cancel, std::atomic<std::uint64_t>* shared_done)
@@ -446,6 +447,18 @@ CirculatingSearch search_circulating(const CirculatingSpace& space, const CostMo
         }
     };
     build(units.whole);
+    // Largest jobs first, so that no thread is left with a big one at the end. (The order of
+    // jobs does not change the results: each thread's best are merged in the canonical order.)
+    std::vector<std::pair<std::uint64_t, std::size_t>> sized;
+    for (std::size_t i = 0; i < jobs.size(); ++i) {
+        long long rem = units.whole;
+        for (std::uint8_t j : jobs[i]) rem -= units.u[j];
+        sized.push_back({units.completions(12 - length, rem), i});
+    }
+    std::stable_sort(sized.begin(), sized.end(), [](const auto& a, const auto& b) { return a.first > b.first; });
+    std::vector<std::vector<std::uint8_t>> ordered;
+    for (const auto& x : sized) ordered.push_back(std::move(jobs[x.second]));
+    jobs = std::move(ordered);
 
     std::atomic<std::uint64_t> done{0};
     std::vector<Enumerator> workers;
