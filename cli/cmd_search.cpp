@@ -23,7 +23,7 @@ struct SearchArgs {
     std::string fractions = "0,1/6,1/4";
     std::vector<std::string> parts, beats, fits, targets;
     std::string reference = "A4=440", weights, period = "2/1", statistic = "rms";
-    bool no_wide = false, all_copies = false, json = false, force = false, quiet = false;
+    bool no_wide = false, all_copies = false, no_pruning = false, json = false, force = false, quiet = false;
     std::optional<double> max_fifth, max_major_third, max_minor_third;
     std::size_t top = 10, starts = 3;
     int threads = 0, generators = 11, max_steps = 72;
@@ -143,7 +143,7 @@ void write_and_report(const SearchArgs& a, const std::string& stem, const std::v
 
 void run_circulating(const SearchArgs& a, bool continuous) {
     CostModel model(build_cost(a), "--part");
-    CirculatingSpace space{parse_fractions(a.fractions, "--fractions"), !a.all_copies};
+    CirculatingSpace space{parse_fractions(a.fractions, "--fractions"), !a.all_copies, !a.no_pruning};
     InterruptScope interrupt;
     ProgressPrinter progress(continuous ? "search continuous" : "search circulating", a.quiet);
     SearchControl control;
@@ -216,13 +216,22 @@ void run_circulating(const SearchArgs& a, bool continuous) {
         write_and_report(a, continuous ? "continuous" : "circulating", scales, nullptr, written);
         out << "circulating temperaments: the fifths C-G, G-D … F-C each narrowed by " << fr
             << " of the Pythagorean comma, together one comma\n"
-            << describe_cost(model.cost()) << ex.total << " distributions";
-        if (ex.symmetry_rotations)
-            out << "; " << ex.evaluated << " evaluated, the others are "
-                << (ex.symmetry_mirror ? "rotations or mirror images" : "rotations") << " of these with the same cost";
-        else
-            out << ", " << ex.evaluated << " evaluated";
-        out << "\n";
+            << describe_cost(model.cost()) << ex.total << " distributions, ";
+        if (ex.evaluated == ex.total) {
+            out << "all evaluated\n";
+        } else {
+            out << ex.evaluated << " evaluated; the others ";
+            if (ex.symmetry_rotations)
+                out << (ex.symmetry_mirror ? "are rotations or mirror images" : "are rotations")
+                    << " of these (same cost)" << (space.prune ? ", or were cut off" : "");
+            else
+                out << "were cut off";
+            if (space.prune) out << " when their first fifths already cost more than the results kept";
+            if (ex.rejected > 0 || model.cost().constraints.no_wide_fifths || model.cost().constraints.max_fifth ||
+                model.cost().constraints.max_major_third || model.cost().constraints.max_minor_third)
+                out << ", or break a constraint";
+            out << "\n";
+        }
         if (cancelled) out << "cancelled after " << ex.enumerated << " of " << ex.total << "; the best found so far:\n";
         out << "\n";
         Table t;
@@ -403,6 +412,7 @@ void add_search(CLI::App& app) {
     cmd->add_option("--max-major-third", a->max_major_third, "constraint: every major third within this many cents of pure");
     cmd->add_option("--max-minor-third", a->max_minor_third, "constraint: every minor third within this many cents of pure");
     cmd->add_flag("--all-copies", a->all_copies, "circulating: also evaluate rotated and mirrored copies");
+    cmd->add_flag("--no-pruning", a->no_pruning, "circulating: evaluate every candidate, even where the fifths chosen so far already cost too much");
     cmd->add_option("--starts", a->starts, "continuous: exhaustive results to start the optimiser from (default 3)");
     cmd->add_option("--target", a->targets, "rank2/equal: target interval RATIO[=GENERATORS][*WEIGHT], e.g. 5/4=4 (defaults: 3/2 5/4 for rank2, 3/2 5/4 6/5 for equal)");
     cmd->add_option("--statistic", a->statistic, "rank2/equal: rms, mean or worst of the targets' errors (default rms)");

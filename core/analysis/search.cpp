@@ -128,9 +128,9 @@ struct Sums {
 // Aligned so that two threads' enumerators never share a cache line.
 class alignas(64) Enumerator {
 public:
-    Enumerator(const CostModel& model, const Units& units, std::size_t top, bool rotations, bool mirror,
+    Enumerator(const CostModel& model, const Units& units, std::size_t top, bool rotations, bool mirror, bool prune,
                const std::atomic<bool>* cancel, std::atomic<std::uint64_t>* shared_done)
-        : model_(model), units_(units), top_(top), rotations_(rotations), mirror_(mirror), cancel_(cancel),
+        : model_(model), units_(units), top_(top), rotations_(rotations), mirror_(mirror), prune_(prune), cancel_(cancel),
           shared_done_(shared_done) {
         const Constraints& c = model.cost().constraints;
         limit_[0] = c.max_fifth.value_or(kInf);
@@ -269,8 +269,34 @@ private:
             skip(units_.completions(left, rem));
             return;
         }
-        if (i == 11) leaf(s);
-        else descend(i + 1, rem);
+        if (i == 11) {
+            leaf(s);
+            return;
+        }
+        if (prune_ && best.size() == top_ && bound(s) > best.top().cost) {
+            skip(units_.completions(left, rem));
+            return;
+        }
+        descend(i + 1, rem);
+    }
+
+    /// The deviation parts over the intervals completed so far: a lower bound of the cost of
+    /// every completion, also in floating point (adding non-negative terms never lowers a
+    /// rounded sum, and sqrt and the weighting are monotone), so pruning above the worst kept
+    /// result never drops one that would have been kept.
+    double bound(const Sums& s) const {
+        double total = 0;
+        for (const auto& p : model_.cost().deviations) total += p.weight * value(s, p);
+        return total;
+    }
+
+    double value(const Sums& s, const DeviationPart& p) const {
+        auto k = static_cast<std::size_t>(p.interval);
+        double tw = model_.total_weight(p.interval);
+        if (tw <= 0) return 0;
+        if (p.statistic == Statistic::mean) return s.s1[k] / tw;
+        if (p.statistic == Statistic::rms) return std::sqrt(s.s2[k] / tw);
+        return s.mx[k];
     }
 
     /// True when the choice is the canonical copy (the largest in fifth-by-fifth order among
@@ -312,18 +338,7 @@ private:
         int copies = 1;
         if (rotations_ && !canonical(copies)) return;
         ++evaluated;
-        double total = 0;
-        for (const auto& p : model_.cost().deviations) {
-            auto k = static_cast<std::size_t>(p.interval);
-            double tw = model_.total_weight(p.interval);
-            double v = 0;
-            if (tw > 0) {
-                if (p.statistic == Statistic::mean) v = s.s1[k] / tw;
-                else if (p.statistic == Statistic::rms) v = std::sqrt(s.s2[k] / tw);
-                else v = s.mx[k];
-            }
-            total += p.weight * v;
-        }
+        double total = bound(s);
         if (leaf_parts_) {
             Positions pos = positions_from_narrowings(t_);
             KeyDeviations d = key_deviations(pos);
@@ -341,7 +356,7 @@ private:
     const CostModel& model_;
     const Units& units_;
     std::size_t top_;
-    bool rotations_, mirror_;
+    bool rotations_, mirror_, prune_;
     const std::atomic<bool>* cancel_;
     std::atomic<std::uint64_t>* shared_done_;
     std::array<double, 3> limit_{};
@@ -464,7 +479,8 @@ CirculatingSearch search_circulating(const CirculatingSpace& space, const CostMo
     std::vector<Enumerator> workers;
     workers.reserve(static_cast<std::size_t>(control.threads));
     for (int t = 0; t < control.threads; ++t)
-        workers.emplace_back(cost, units, top, result.symmetry_rotations, result.symmetry_mirror, control.cancel, &done);
+        workers.emplace_back(cost, units, top, result.symmetry_rotations, result.symmetry_mirror, space.prune,
+                             control.cancel, &done);
     detail::run_parallel(control.threads, jobs.size(), control, done, result.total,
                  [&](int t, std::size_t job) { workers[static_cast<std::size_t>(t)].run(jobs[job]); });
 

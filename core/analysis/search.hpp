@@ -51,6 +51,10 @@ inline constexpr std::uint64_t max_circulating_candidates = 20'000'000'000ULL;
 struct CirculatingSpace {
     std::vector<Ratio> fractions; ///< distinct, sorted, each in -1..1 with denominator <= 1000
     bool use_symmetry = true;     ///< skip rotated (and mirrored) copies when the cost allows
+    /// Skip a branch once the deviation parts of the fifths chosen so far already cost more
+    /// than the worst result kept (exact: those sums only grow). The results are the same; how
+    /// many candidates are evaluated then depends on the order threads meet them.
+    bool prune = true;
 };
 /// Parses "0,1/6,1/4" (InputError at source); sorts and removes repeats.
 std::vector<Ratio> parse_fractions(const std::string& text, const std::string& source);

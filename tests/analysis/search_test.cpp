@@ -22,8 +22,8 @@ CostModel model(std::vector<DeviationPart> parts, Constraints c = {}) {
     return CostModel(cost);
 }
 
-CirculatingSpace space(const std::string& fractions, bool symmetry = true) {
-    return CirculatingSpace{parse_fractions(fractions, "--fractions"), symmetry};
+CirculatingSpace space(const std::string& fractions, bool symmetry = true, bool prune = true) {
+    return CirculatingSpace{parse_fractions(fractions, "--fractions"), symmetry, prune};
 }
 
 SearchControl threads(int n) {
@@ -399,4 +399,27 @@ TEST_CASE("equal divisions are ranked by their targets' errors", "[search]") {
     CHECK(e13.errors[0].steps == 4);
     CHECK(e13.errors[0].error == Approx(2.705).margin(5e-4));
     CHECK_THROWS_WITH(search_equal(cost, 1200.0, 100001, 5), "--max-steps: error: largest division 100001 is outside 1..100000");
+}
+
+TEST_CASE("pruning by the partial cost keeps exactly the same results", "[search]") {
+    std::vector<std::vector<DeviationPart>> costs = {
+        {{KeyInterval::major_third, Statistic::rms, 1}},
+        {{KeyInterval::fifth, Statistic::worst, 1}, {KeyInterval::minor_third, Statistic::mean, 0.3}},
+        {{KeyInterval::major_third, Statistic::mean, 1}, {KeyInterval::major_third, Statistic::worst, 0.5}},
+    };
+    for (const auto& parts : costs) {
+        CostModel m = model(parts);
+        for (bool symmetry : {false, true}) {
+            CirculatingSearch full = search_circulating(space("-1/12,0,1/12,1/6,1/4", symmetry, false), m, 20, threads(2));
+            CirculatingSearch pruned = search_circulating(space("-1/12,0,1/12,1/6,1/4", symmetry, true), m, 20, threads(2));
+            REQUIRE(pruned.results.size() == full.results.size());
+            CHECK(pruned.enumerated == full.enumerated); // skipped branches are counted as covered
+            CHECK(pruned.evaluated < full.evaluated);
+            for (std::size_t i = 0; i < full.results.size(); ++i) {
+                CHECK(pruned.results[i].fractions == full.results[i].fractions);
+                CHECK(pruned.results[i].cost == full.results[i].cost);
+                CHECK(pruned.results[i].copies == full.results[i].copies);
+            }
+        }
+    }
 }
