@@ -23,7 +23,7 @@ void add_compare(CLI::App& app) {
     auto no_fit = std::make_shared<bool>(false);
     auto order = std::make_shared<int>(3);
     auto spelling = std::make_shared<std::string>("mixed");
-    cmd->add_option("TUNING", *tunings, "Two to twelve .scl files or recipes")
+    cmd->add_option("TUNING", *tunings, std::string(tuning_help) + "; two to twelve of them")
         ->required()
         ->expected(2, 12);
     cmd->add_option("--pitch", *pitch, "Reference pitch NOTE=HZ for beat rates (default A4=440)")

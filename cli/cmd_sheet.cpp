@@ -35,7 +35,7 @@ void add_sheet(CLI::App& app) {
     auto falling = std::make_shared<bool>(false);
     auto spelling = std::make_shared<std::string>("mixed");
     auto paper = std::make_shared<std::string>("a4");
-    cmd->add_option("TUNING", *tuning, "A .scl file with 12 degrees")->required();
+    cmd->add_option("TUNING", *tuning, std::string(tuning_help) + ", with 12 degrees")->required();
     cmd->add_option("--pitch", *pitch, "Reference pitch NOTE=HZ, any note (default A4=440)")
         ->type_name("NOTE=HZ");
     cmd->add_option("--tonic", *tonic, "Note of degree 0 (default C)")->type_name("NOTE");
