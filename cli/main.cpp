@@ -10,6 +10,8 @@ int main(int argc, char** argv) {
     app.set_version_flag("--version", std::string("terzo ") + TERZO_VERSION);
     app.require_subcommand(1);
     terzo::cli::add_inspect(app);
+    terzo::cli::add_search(app);
+    terzo::cli::add_rank(app);
     terzo::cli::add_resultants(app);
     terzo::cli::add_sheet(app);
     terzo::cli::add_compare(app);
@@ -17,6 +19,8 @@ int main(int argc, char** argv) {
     terzo::cli::add_export(app);
     try {
         app.parse(argc, argv);
+    } catch (const terzo::cli::ExitStatus& e) {
+        return e.code;
     } catch (const CLI::ParseError& e) {
         if (e.get_exit_code() == 0) return app.exit(e); // --help, --version
         // One line in the same form as every other terzo error; exit status 2 for usage.
