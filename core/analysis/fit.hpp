@@ -1,0 +1,26 @@
+// A tuning's fit: one number summarising how well its combination tones land on its own notes
+// (lower is better). Defined here, once: the weighted root mean square of landing deviations in
+// cents, each tone weighted by fit_weight().
+#pragma once
+
+#include <cstddef>
+#include <vector>
+
+#include "core/analysis/combination.hpp"
+
+namespace terzo {
+
+struct Fit {
+    double rms_cents = 0.0;   ///< sqrt(sum w*d^2 / sum w); 0 when no tone has weight
+    double total_weight = 0.0;
+    std::size_t tones = 0;    ///< tones with non-zero weight
+    std::size_t exact = 0;    ///< of those, landings proven exact
+};
+
+/// Weight of one tone: its audibility estimate divided by (order - 1), so higher orders count less.
+double fit_weight(const Tone& tone);
+
+/// The fit over a set of dyads (every dyad of a keyboard, or the pairs of a chord).
+Fit fit(const std::vector<DyadTones>& dyads);
+
+} // namespace terzo
