@@ -112,15 +112,14 @@ private:
 SessionSettings read_settings(const Json& j, const std::string& source) {
     Reader r(j, "settings", source);
     SessionSettings s;
-    s.reference_hz = r.number("reference_hz", 1.0, 20000.0);
-    s.reference_key = r.integer("reference_key", 0, 127);
-    s.low_key = r.integer("low_key", 0, 127);
-    s.high_key = r.integer("high_key", 0, 127);
-    s.max_order = r.integer("max_order", 2, 12);
-    s.partials = r.integer("partials", 1, 16);
+    s.reference_hz = r.number("reference_hz", min_ref_hz, max_ref_hz);
+    s.span = r.integer("span", 1, max_span);
+    s.max_order = r.integer("max_order", 2, terzo::max_order);
+    s.partials = r.integer("partials", 1, max_partials);
     s.landing_tolerance_cents = r.number("landing_tolerance_cents", 0.0, 600.0, true);
     s.lattice_tolerance_cents = r.number("lattice_tolerance_cents", 0.0, 600.0, true);
     s.odd_limit = r.integer("odd_limit", 1, 243);
+    s.grid_measure = r.string("grid_measure");
     r.no_other_keys();
     check_settings(s, source);
     return s;
@@ -128,31 +127,30 @@ SessionSettings read_settings(const Json& j, const std::string& source) {
 
 OJson settings_json(const SessionSettings& s) {
     return {{"reference_hz", s.reference_hz},
-            {"reference_key", s.reference_key},
-            {"low_key", s.low_key},
-            {"high_key", s.high_key},
+            {"span", s.span},
             {"max_order", s.max_order},
             {"partials", s.partials},
             {"landing_tolerance_cents", s.landing_tolerance_cents},
             {"lattice_tolerance_cents", s.lattice_tolerance_cents},
-            {"odd_limit", s.odd_limit}};
+            {"odd_limit", s.odd_limit},
+            {"grid_measure", s.grid_measure}};
 }
 
 } // namespace
 
 void check_settings(const SessionSettings& s, const std::string& source) {
     auto bad = [&](const std::string& m) { fail({source, 0, 0}, m); };
-    if (!(s.reference_hz >= 1.0 && s.reference_hz <= 20000.0))
-        bad("reference pitch " + fixed(s.reference_hz, 3) + " Hz is outside 1 to 20000 Hz");
-    for (int k : {s.reference_key, s.low_key, s.high_key})
-        if (k < 0 || k > 127) bad("key " + std::to_string(k) + " is outside MIDI keys 0 to 127");
-    if (s.low_key >= s.high_key)
-        bad("the lowest key (" + std::to_string(s.low_key) + ") must be below the highest (" +
-            std::to_string(s.high_key) + ")");
-    if (s.max_order < 2 || s.max_order > 12)
-        bad("combination-tone order " + std::to_string(s.max_order) + " is outside 2 to 12");
-    if (s.partials < 1 || s.partials > 16)
-        bad("partials " + std::to_string(s.partials) + " is outside 1 to 16");
+    if (!(s.reference_hz >= min_ref_hz && s.reference_hz <= max_ref_hz))
+        bad("reference pitch " + fixed(s.reference_hz, 3) + " Hz is outside 0.001 to 100000 Hz");
+    if (s.span < 1 || s.span > max_span)
+        bad("span " + std::to_string(s.span) + " is outside 1 to " + std::to_string(max_span) +
+            " periods");
+    if (s.max_order < 2 || s.max_order > terzo::max_order)
+        bad("combination-tone order " + std::to_string(s.max_order) + " is outside 2 to " +
+            std::to_string(terzo::max_order));
+    if (s.partials < 1 || s.partials > max_partials)
+        bad("partials " + std::to_string(s.partials) + " is outside 1 to " +
+            std::to_string(max_partials));
     if (!(s.landing_tolerance_cents > 0.0 && s.landing_tolerance_cents <= 600.0))
         bad("landing tolerance " + fixed(s.landing_tolerance_cents, 3) +
             " cents is outside (0, 600]");
@@ -161,6 +159,8 @@ void check_settings(const SessionSettings& s, const std::string& source) {
             " cents is outside (0, 600]");
     if (s.odd_limit < 1 || s.odd_limit > 243)
         bad("odd limit " + std::to_string(s.odd_limit) + " is outside 1 to 243");
+    if (s.grid_measure != "worst" && s.grid_measure != "fit")
+        bad("grid measure \"" + s.grid_measure + "\" is neither \"worst\" nor \"fit\"");
 }
 
 void write_session(std::ostream& out, const Session& session) {
@@ -225,16 +225,20 @@ Session read_session(std::istream& in, const std::string& source) {
     s.current = r.integer("current", 0, last);
     s.settings = read_settings(r.get("settings"), source);
 
+    // Notes of the current tuning's keyboard: span periods of its degrees, plus the
+    // closing note.
+    int notes = s.tunings.empty()
+                    ? 0
+                    : s.settings.span * static_cast<int>(s.tunings[s.current].scale.size()) + 1;
     const Json& sel = r.array("selection", max_selection);
     for (const Json& k : sel) {
-        if (!k.is_number_integer() || k.get<long long>() < s.settings.low_key ||
-            k.get<long long>() > s.settings.high_key)
-            r.fail_here("\"selection\" must hold keys from " + std::to_string(s.settings.low_key) +
-                        " to " + std::to_string(s.settings.high_key) + ", found " + k.dump());
-        int key = static_cast<int>(k.get<long long>());
-        if (!s.selection.empty() && key <= s.selection.back())
+        if (!k.is_number_integer() || k.get<long long>() < 0 || k.get<long long>() >= notes)
+            r.fail_here("\"selection\" must hold note numbers from 0 to " +
+                        std::to_string(notes - 1) + " of the current keyboard, found " + k.dump());
+        int note = static_cast<int>(k.get<long long>());
+        if (!s.selection.empty() && note <= s.selection.back())
             r.fail_here("\"selection\" must be ascending without repeats, found " + sel.dump());
-        s.selection.push_back(key);
+        s.selection.push_back(note);
     }
     s.view = r.string("view");
     if (std::find(session_views.begin(), session_views.end(), s.view) == session_views.end())

@@ -10,21 +10,22 @@
 #include <string>
 #include <vector>
 
+#include "core/analysis/combination.hpp"
 #include "core/tuning/scale.hpp"
 
 namespace terzo {
 
-/// Analysis settings every view shares.
+/// Analysis settings every view shares (ranges as in core/analysis: keyboard.hpp and
+/// combination.hpp).
 struct SessionSettings {
-    double reference_hz = 261.6255653;   ///< frequency of degree 0 at reference_key
-    int reference_key = 60;              ///< MIDI key of degree 0 (60 = middle C)
-    int low_key = 21;                    ///< lowest key of the keyboard (21 = A0)
-    int high_key = 108;                  ///< highest key (108 = C8): 88 keys
-    int max_order = 5;                   ///< largest combination-tone order |a| + |b|
-    int partials = 1;                    ///< partials per note (1 = pure tones)
-    double landing_tolerance_cents = 5.0; ///< a resultant within this lands on a note
+    double reference_hz = 130.8127827;     ///< degree 0 of the lowest period (C3 at A4 = 440)
+    int span = 3;                          ///< keyboard span in periods, 1..max_span
+    int max_order = 5;                     ///< largest combination-tone order |a| + |b|
+    int partials = 1;                      ///< partials per note (1 = pure tones)
+    double landing_tolerance_cents = 5.0;  ///< a resultant this close to a note "lands" on it
     double lattice_tolerance_cents = 20.0; ///< nearest-just search for the lattice
-    int odd_limit = 15;                  ///< odd limit of that search
+    int odd_limit = 15;                    ///< odd limit of that search
+    std::string grid_measure = "worst";    ///< dyad grid colour: "worst" deviation or "fit"
 };
 
 /// One open tuning.
@@ -38,7 +39,9 @@ struct Session {
     std::vector<SessionTuning> tunings;
     int current = 0;             ///< index into tunings (0 when there are none)
     SessionSettings settings;
-    std::vector<int> selection;  ///< selected MIDI keys, ascending, at most max_selection
+    /// Selected notes as indices into the current keyboard's notes (period * size + degree),
+    /// ascending, at most max_selection.
+    std::vector<int> selection;
     std::string view = "lattice"; ///< one of session_views
     double volume = 0.1;         ///< listening volume, 0 to 1
 };

@@ -25,7 +25,7 @@ Session sample() {
     s.settings.reference_hz = 415.0;
     s.settings.max_order = 3;
     s.settings.landing_tolerance_cents = 2.5;
-    s.selection = {60, 64, 67};
+    s.selection = {0, 2, 3};
     s.view = "grid";
     s.volume = 0.25;
     return s;
@@ -68,9 +68,9 @@ TEST_CASE("a session reads back exactly as it was written", "[session]") {
     CHECK(back.settings.reference_hz == 415.0);
     CHECK(back.settings.max_order == 3);
     CHECK(back.settings.landing_tolerance_cents == 2.5);
-    CHECK(back.settings.low_key == 21);
-    CHECK(back.settings.high_key == 108);
-    CHECK(back.selection == std::vector<int>{60, 64, 67});
+    CHECK(back.settings.span == 3);
+    CHECK(back.settings.grid_measure == "worst");
+    CHECK(back.selection == std::vector<int>{0, 2, 3});
     CHECK(back.view == "grid");
     CHECK(back.volume == 0.25);
     CHECK(text_of(back) == text_of(s));
@@ -80,7 +80,7 @@ TEST_CASE("the session format is the documented JSON", "[session]") {
     std::string t = text_of(sample());
     CHECK(t.rfind("{\n  \"format\": \"terzo-session\",\n  \"version\": 1,\n  \"tunings\": [", 0) == 0);
     CHECK(t.find("\"reference_hz\": 415.0") != std::string::npos);
-    CHECK(t.find("\"selection\": [\n    60,\n    64,\n    67\n  ]") != std::string::npos);
+    CHECK(t.find("\"selection\": [\n    0,\n    2,\n    3\n  ]") != std::string::npos);
 }
 
 TEST_CASE("an empty session is valid", "[session]") {
@@ -135,8 +135,8 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
     }
     SECTION("values out of range") {
         REQUIRE_THROWS_WITH(parse_edited("\"reference_hz\": 415.0", "\"reference_hz\": 0"),
-                            "s.json: error: \"settings.reference_hz\" must be a number from 1 to "
-                            "20000, found 0");
+                            "s.json: error: \"settings.reference_hz\" must be a number from "
+                            "0.001 to 100000, found 0");
         REQUIRE_THROWS_WITH(parse_edited("\"max_order\": 3", "\"max_order\": 13"),
                             "s.json: error: \"settings.max_order\" must be an integer from 2 to 12, "
                             "found 13");
@@ -146,8 +146,11 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
         REQUIRE_THROWS_WITH(parse_edited("\"landing_tolerance_cents\": 2.5", "\"landing_tolerance_cents\": 0"),
                             "s.json: error: \"settings.landing_tolerance_cents\" must be a number "
                             "above 0 up to 600, found 0");
-        REQUIRE_THROWS_WITH(parse_edited("\"low_key\": 21", "\"low_key\": 120"),
-                            "s.json: error: the lowest key (120) must be below the highest (108)");
+        REQUIRE_THROWS_WITH(parse_edited("\"span\": 3", "\"span\": 12"),
+                            "s.json: error: \"settings.span\" must be an integer from 1 to 11, "
+                            "found 12");
+        REQUIRE_THROWS_WITH(parse_edited("\"grid_measure\": \"worst\"", "\"grid_measure\": \"best\""),
+                            "s.json: error: grid measure \"best\" is neither \"worst\" nor \"fit\"");
         REQUIRE_THROWS_WITH(parse_edited("\"current\": 1", "\"current\": 2"),
                             "s.json: error: \"current\" must be an integer from 0 to 1, found 2");
         REQUIRE_THROWS_WITH(parse_edited("\"view\": \"grid\"", "\"view\": \"map\""),
@@ -157,12 +160,14 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
                             "s.json: error: \"volume\" must be a number from 0 to 1, found 2");
     }
     SECTION("bad selections") {
-        REQUIRE_THROWS_WITH(parse_edited("\n    60,", "\n    10,"),
-                            "s.json: error: \"selection\" must hold keys from 21 to 108, found 10");
-        REQUIRE_THROWS_WITH(parse_edited("\n    64,", "\n    60,"),
+        // The current tuning has 3 degrees and the span is 3 periods: notes 0 to 9.
+        REQUIRE_THROWS_WITH(parse_edited("\n    0,", "\n    10,"),
+                            "s.json: error: \"selection\" must hold note numbers from 0 to 9 of "
+                            "the current keyboard, found 10");
+        REQUIRE_THROWS_WITH(parse_edited("\n    2,", "\n    0,"),
                             "s.json: error: \"selection\" must be ascending without repeats, found "
-                            "[60,60,67]");
-        REQUIRE_THROWS_WITH(parse_edited("\n    60,", "\n    60,61,62,63,64,65,66,"),
+                            "[0,0,3]");
+        REQUIRE_THROWS_WITH(parse_edited("\n    3\n", "\n    3,4,5,6,7,8,9\n"),
                             "s.json: error: \"selection\" has 9 entries; at most 8 are allowed");
     }
     SECTION("a broken embedded tuning names its entry and line") {
@@ -188,10 +193,14 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
 TEST_CASE("settings outside their ranges are rejected by check_settings", "[session]") {
     SessionSettings s;
     CHECK_NOTHROW(check_settings(s, "x"));
-    s.partials = 17;
-    REQUIRE_THROWS_WITH(check_settings(s, "x"), "x: error: partials 17 is outside 1 to 16");
+    s.partials = 33;
+    REQUIRE_THROWS_WITH(check_settings(s, "x"), "x: error: partials 33 is outside 1 to 32");
     s = {};
-    s.reference_hz = 30000;
+    s.reference_hz = 200000;
     REQUIRE_THROWS_WITH(check_settings(s, "x"),
-                        "x: error: reference pitch 30000.000 Hz is outside 1 to 20000 Hz");
+                        "x: error: reference pitch 200000.000 Hz is outside 0.001 to 100000 Hz");
+    s = {};
+    s.max_order = 1;
+    REQUIRE_THROWS_WITH(check_settings(s, "x"),
+                        "x: error: combination-tone order 1 is outside 2 to 12");
 }
