@@ -8,5 +8,6 @@
 namespace terzo::cli {
 
 void add_inspect(CLI::App& app);
+void add_resultants(CLI::App& app);
 
 } // namespace terzo::cli

@@ -10,6 +10,7 @@ int main(int argc, char** argv) {
     app.set_version_flag("--version", std::string("terzo ") + TERZO_VERSION);
     app.require_subcommand(1);
     terzo::cli::add_inspect(app);
+    terzo::cli::add_resultants(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {

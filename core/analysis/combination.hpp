@@ -93,5 +93,8 @@ std::vector<DyadTones> keyboard_tones(const Keyboard& keyboard, const ToneOption
 
 /// An upper bound on the tones computed for `dyads` dyads (used to enforce max_tones).
 std::uint64_t tone_count_bound(std::uint64_t dyads, const ToneOptions& options);
+/// Throws InputError (naming "--order" and the other options to lower) when
+/// tone_count_bound(dyads, options) exceeds max_tones.
+void check_tone_count(std::uint64_t dyads, const ToneOptions& options);
 
 } // namespace terzo

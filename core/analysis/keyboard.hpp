@@ -67,6 +67,7 @@ private:
     double period_cents_;
     std::vector<Note> notes_;
     std::vector<SortedDegree> sorted_;
+    std::vector<std::optional<Ratio>> degree_ratios_; // each degree's ratio, when rational
     int power_offset_ = 0;                    // period_powers_[p + power_offset_] = period^p
     std::vector<Ratio> period_powers_;        // only when the period is rational
 };

@@ -1,0 +1,60 @@
+#include <iostream>
+#include <sstream>
+
+#include "cli/commands.hpp"
+#include "core/analysis/report.hpp"
+#include "core/tuning/load.hpp"
+
+namespace terzo::cli {
+
+void add_resultants(CLI::App& app) {
+    auto* cmd = app.add_subcommand(
+        "resultants", "Combination tones of every dyad (or of one chord) and where they land");
+    struct Args {
+        std::string tuning;
+        double ref_hz = default_ref_hz;
+        int span = 1;
+        int order = 3;
+        int partials = 1;
+        std::string chord;
+        bool json = false, csv = false;
+    };
+    auto a = std::make_shared<Args>();
+    cmd->add_option("TUNING", a->tuning, "A .scl file")->required();
+    cmd->add_option("--ref-hz", a->ref_hz, "Frequency of degree 0 in the lowest period (default 261.6255653, C4)");
+    cmd->add_option("--span", a->span, "Periods the keyboard spans, 1 to 11 (default 1)");
+    cmd->add_option("--order", a->order, "Highest order |a|+|b| of a term, 2 to 12 (default 3)");
+    cmd->add_option("--partials", a->partials, "Harmonics per note, 1 to 32 (default 1: pure tones)");
+    cmd->add_option("--chord", a->chord, "A chord instead of every dyad: degree numbers or ratios, e.g. 0,4,7 or 1/1,5/4,3/2");
+    auto* json = cmd->add_flag("--json", a->json, "Print one JSON object (keys documented in the README)");
+    auto* csv = cmd->add_flag("--csv", a->csv, "Print one CSV row per tone");
+    json->excludes(csv);
+    cmd->callback([a] {
+        Keyboard kb(load_tuning(a->tuning), a->ref_hz, a->span);
+        ToneOptions opt;
+        opt.order = a->order;
+        opt.partials = a->partials;
+        check_options(opt);
+        ResultantsReport r;
+        r.keyboard = &kb;
+        r.options = opt;
+        if (!a->chord.empty()) {
+            r.chord = parse_chord(a->chord, kb, {"--chord"});
+            r.dyads = chord_tones(kb, *r.chord, opt);
+            r.bass = common_bass(kb, *r.chord);
+        } else {
+            r.dyads = keyboard_tones(kb, opt);
+        }
+        r.fit = fit(r.dyads);
+        std::ostringstream out;
+        if (a->json)
+            out << resultants_json(r).dump(2) << '\n';
+        else if (a->csv)
+            write_csv(out, tones_table(r.dyads));
+        else
+            out << resultants_text(r);
+        std::cout << out.str();
+    });
+}
+
+} // namespace terzo::cli

@@ -1,0 +1,203 @@
+#include "core/analysis/report.hpp"
+
+#include <sstream>
+
+#include "core/io/format.hpp"
+
+namespace terzo {
+
+namespace {
+
+using json = nlohmann::ordered_json;
+
+json ratio_or_null(const std::optional<Ratio>& r) { return r ? json(r->str()) : json(nullptr); }
+
+std::string note_text(const Note& n) {
+    std::string s = note_label(n.degree, n.period) + " " + fixed(n.hz, 3) + " Hz";
+    s += " (" + (n.pitch.is_exact() ? n.pitch.str() : fixed(n.cents, 3) + " c") + ")";
+    if (!n.on_scale) s += " off the scale";
+    return s;
+}
+
+json landing_json(const Landing& l) {
+    return {{"degree", l.degree},
+            {"period", l.period},
+            {"deviation_cents", l.deviation_cents},
+            {"exact", l.exact}};
+}
+
+} // namespace
+
+std::string note_label(int degree, int period) {
+    return std::to_string(degree) + "@" + std::to_string(period);
+}
+
+std::string exact_text(const Tone& tone) {
+    if (tone.ratio) return tone.ratio->str();
+    if (tone.vector) return tone.vector->str();
+    return "-";
+}
+
+json note_json(const Note& note) {
+    return {{"degree", note.degree},
+            {"period", note.period},
+            {"hz", note.hz},
+            {"ratio", ratio_or_null(note.ratio())}};
+}
+
+json tone_json(const Tone& t) {
+    return {{"a", t.term.a},
+            {"b", t.term.b},
+            {"order", t.term.order()},
+            {"name", t.term.name()},
+            {"low_partial", t.low_partial},
+            {"high_partial", t.high_partial},
+            {"hz", t.hz},
+            {"ratio", ratio_or_null(t.ratio)},
+            {"exact_value", t.ratio || t.vector ? json(exact_text(t)) : json(nullptr)},
+            {"landing", landing_json(t.landing)},
+            {"audibility", t.audibility}};
+}
+
+json resultants_json(const ResultantsReport& r) {
+    TERZO_ASSERT(r.keyboard);
+    json dyads = json::array();
+    for (const auto& d : r.dyads) {
+        json tones = json::array();
+        for (const auto& t : d.tones) tones.push_back(tone_json(t));
+        dyads.push_back({{"low", note_json(d.low)}, {"high", note_json(d.high)}, {"tones", std::move(tones)}});
+    }
+    json doc = {{"tuning", r.keyboard->scale().description()},
+                {"ref_hz", r.keyboard->ref_hz()},
+                {"span", r.keyboard->span()},
+                {"order", r.options.order},
+                {"partials", r.options.partials},
+                {"dyads", std::move(dyads)}};
+    if (r.chord) {
+        json notes = json::array();
+        for (const auto& n : *r.chord) {
+            json j = note_json(n);
+            j["on_scale"] = n.on_scale;
+            notes.push_back(std::move(j));
+        }
+        json chord = {{"notes", std::move(notes)}};
+        if (r.bass) {
+            const CommonBass& b = *r.bass;
+            json mult = json::array();
+            for (const auto& m : b.multiples) mult.push_back(m);
+            chord["common_bass"] = {
+                {"found", b.found},
+                {"approximate", b.approximate},
+                {"hz", b.found ? json(b.hz) : json(nullptr)},
+                {"ratio", ratio_or_null(b.ratio)},
+                {"exact_value", b.ratio ? json(b.ratio->str()) : b.vector ? json(b.vector->str()) : json(nullptr)},
+                {"multiples", std::move(mult)},
+                {"max_error_cents", b.max_error_cents},
+                {"landing", b.found ? landing_json(b.landing) : json(nullptr)}};
+        }
+        doc["chord"] = std::move(chord);
+    }
+    doc["fit"] = {{"rms_cents", r.fit.rms_cents},
+                  {"total_weight", r.fit.total_weight},
+                  {"tones", r.fit.tones},
+                  {"exact", r.fit.exact}};
+    return doc;
+}
+
+Table dyad_table(const DyadTones& dyad, bool with_partials) {
+    using A = Table::Align;
+    Table t;
+    t.header = {"term", "name", "order"};
+    t.align = {A::left, A::left, A::right};
+    if (with_partials) {
+        t.header.push_back("partials");
+        t.align.push_back(A::right);
+    }
+    for (const char* h : {"Hz", "exact ratio", "lands on", "deviation c", "exact", "audibility"})
+        t.header.push_back(h);
+    for (A a : {A::right, A::left, A::right, A::right, A::left, A::right}) t.align.push_back(a);
+    for (const Tone& x : dyad.tones) {
+        std::vector<std::string> row = {"(" + std::to_string(x.term.a) + "," + std::to_string(x.term.b) + ")",
+                                        x.term.name(), std::to_string(x.term.order())};
+        if (with_partials) row.push_back(std::to_string(x.low_partial) + "x" + std::to_string(x.high_partial));
+        row.push_back(fixed(x.hz, 3));
+        row.push_back(exact_text(x));
+        row.push_back(note_label(x.landing.degree, x.landing.period));
+        row.push_back(signed_fixed(x.landing.deviation_cents, 3));
+        row.push_back(x.landing.exact ? "=" : "");
+        row.push_back(fixed(x.audibility, 2));
+        t.add(std::move(row));
+    }
+    return t;
+}
+
+Table tones_table(const std::vector<DyadTones>& dyads) {
+    Table t;
+    t.header = {"low_degree", "low_period", "low_hz", "high_degree", "high_period", "high_hz",
+                "a", "b", "order", "name", "low_partial", "high_partial", "hz", "ratio",
+                "landing_degree", "landing_period", "deviation_cents", "exact", "audibility"};
+    for (const auto& d : dyads)
+        for (const Tone& x : d.tones)
+            t.add({std::to_string(d.low.degree), std::to_string(d.low.period), fixed(d.low.hz, 6),
+                   std::to_string(d.high.degree), std::to_string(d.high.period), fixed(d.high.hz, 6),
+                   std::to_string(x.term.a), std::to_string(x.term.b), std::to_string(x.term.order()),
+                   x.term.name(), std::to_string(x.low_partial), std::to_string(x.high_partial),
+                   fixed(x.hz, 6), x.ratio ? x.ratio->str() : "", std::to_string(x.landing.degree),
+                   std::to_string(x.landing.period), fixed(x.landing.deviation_cents, 6),
+                   x.landing.exact ? "true" : "false", fixed(x.audibility, 4)});
+    return t;
+}
+
+std::string resultants_text(const ResultantsReport& r) {
+    TERZO_ASSERT(r.keyboard);
+    const Keyboard& kb = *r.keyboard;
+    std::ostringstream out;
+    out << kb.scale().description() << '\n'
+        << "reference " << fixed(kb.ref_hz(), 4) << " Hz = degree 0 of period 0; span "
+        << kb.span() << (kb.span() == 1 ? " period" : " periods") << "; order up to "
+        << r.options.order;
+    if (r.options.partials > 1) out << "; partials 1.." << r.options.partials;
+    out << "\n";
+    if (r.chord) {
+        out << "chord:";
+        for (const auto& n : *r.chord) out << "  " << note_text(n);
+        out << "\n";
+    }
+    for (const auto& d : r.dyads) {
+        out << "\n" << note_text(d.low) << "  +  " << note_text(d.high) << "\n";
+        if (d.tones.empty())
+            out << "  (no combination tone of this order is positive)\n";
+        else
+            write_text(out, dyad_table(d, r.options.partials > 1));
+    }
+    if (r.bass) {
+        const CommonBass& b = *r.bass;
+        out << "\ncommon resultant bass: ";
+        if (!b.found) {
+            out << "none within the tolerance of " << fixed(default_bass_tolerance_cents, 1) << " cents\n";
+        } else {
+            out << fixed(b.hz, 3) << " Hz";
+            if (b.ratio) out << " (" << b.ratio->str() << ")";
+            else if (b.vector) out << " (" << b.vector->str() << ")";
+            out << (b.approximate ? ", approximate (worst note " + fixed(b.max_error_cents, 3) + " c off)" : ", exact");
+            out << "; notes are its multiples";
+            for (const auto& m : b.multiples) out << ' ' << m;
+            out << "; lands on " << note_label(b.landing.degree, b.landing.period) << ' '
+                << signed_fixed(b.landing.deviation_cents, 3) << " c" << (b.landing.exact ? " =" : "") << "\n";
+        }
+    }
+    out << "\nfit: " << fixed(r.fit.rms_cents, 3) << " cents (weighted RMS of landing deviations over "
+        << r.fit.tones << " tones, " << r.fit.exact << " exact)\n";
+    out << "\nlegend: term (a,b) is the tone a*f_low + b*f_high";
+    if (r.options.partials > 1) out << " of partials i x j (a*i*f_low + b*j*f_high)";
+    out << "; L and H name the low and high note.\n"
+           "  lands on d@p: the nearest note, degree d in period p (0 = the keyboard's lowest period,\n"
+           "  negative below it). deviation: tone minus that note in cents. '=' the tone coincides\n"
+           "  with the note exactly (proven with exact arithmetic, never by a tolerance).\n"
+           "  exact ratio: tone / reference; '-' when not exact. audibility: a rough estimate in\n"
+           "  [0, 1] from published psychoacoustic findings (see the README), not a measurement.\n"
+           "  fit weights each tone by audibility / (order - 1).\n";
+    return out.str();
+}
+
+} // namespace terzo

@@ -1,0 +1,50 @@
+// The resultant engine's results as reports: a terminal table per dyad, one flat CSV table,
+// and the JSON document of "terzo resultants" (keys documented in the README). Both front
+// ends print resultants through these, so numbers read the same everywhere.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include <nlohmann/json.hpp>
+
+#include "core/analysis/chord.hpp"
+#include "core/analysis/combination.hpp"
+#include "core/analysis/fit.hpp"
+#include "core/io/table.hpp"
+
+namespace terzo {
+
+/// What a resultants report covers: the request and its results.
+struct ResultantsReport {
+    const Keyboard* keyboard = nullptr;
+    ToneOptions options;
+    std::vector<DyadTones> dyads;
+    Fit fit;
+    std::optional<std::vector<Note>> chord; ///< set when a chord was analysed
+    std::optional<CommonBass> bass;         ///< its common resultant bass
+};
+
+/// "4@0": degree 4 in period 0.
+std::string note_label(int degree, int period);
+/// The exact value of a tone as text ("1/4", "2^(1/3)"), or "-" when it is not exact.
+std::string exact_text(const Tone& tone);
+
+/// {"degree", "period", "hz", "ratio"} for one note.
+nlohmann::ordered_json note_json(const Note& note);
+/// {"a", "b", "order", "name", "low_partial", "high_partial", "hz", "ratio", "exact_value",
+///  "landing": {"degree", "period", "deviation_cents", "exact"}, "audibility"}.
+nlohmann::ordered_json tone_json(const Tone& tone);
+/// The whole document (see the README).
+nlohmann::ordered_json resultants_json(const ResultantsReport& report);
+
+/// One dyad's tones: term, name, order, (partials), Hz, exact ratio, landing, deviation.
+Table dyad_table(const DyadTones& dyad, bool with_partials);
+/// Every tone of every dyad in one table, one row per tone, for CSV.
+Table tones_table(const std::vector<DyadTones>& dyads);
+/// The human-readable report: a heading per dyad, its table, the chord's bass, the fit and
+/// a legend.
+std::string resultants_text(const ResultantsReport& report);
+
+} // namespace terzo
