@@ -11,6 +11,35 @@ namespace terzo::gui {
 
 namespace {
 
+// Per-context state, kept in io.BackendPlatformUserData. For each button and key: pressed
+// since the last new frame, and a release waiting to be applied at the next new frame.
+struct PlatformData {
+    bool mouse_fresh[5] = {};
+    bool mouse_release[5] = {};
+    bool mouse_release_next[5] = {};
+    bool key_fresh[512] = {};
+    bool key_release[512] = {};
+    bool key_release_next[512] = {};
+    sf::Event::KeyEvent last_key{}; // modifiers as the last key event reported them
+};
+
+PlatformData& data(ImGuiIO& io) {
+    IM_ASSERT(io.BackendPlatformUserData && "platform_init was not called");
+    return *static_cast<PlatformData*>(io.BackendPlatformUserData);
+}
+
+// Press: down at once. Release: at once, unless the press came in this same frame; then at
+// the next new frame, so that ImGui sees the button down for one frame.
+void press(bool& down, bool& fresh, bool& release_next) {
+    down = true;
+    fresh = true;
+    release_next = false;
+}
+void release(bool& down, bool fresh, bool& release) {
+    if (fresh) release = true;
+    else down = false;
+}
+
 // ImGui keeps the pointer it is given; the string lives until the next call.
 const char* get_clipboard(void*) {
     static std::string text;
@@ -42,6 +71,7 @@ void set_modifiers(ImGuiIO& io, const sf::Event::KeyEvent& k) {
 
 void platform_init(ImGuiIO& io, bool with_clipboard) {
     io.BackendPlatformName = "terzo_sfml";
+    io.BackendPlatformUserData = new PlatformData;
     io.KeyMap[ImGuiKey_Tab] = sf::Keyboard::Tab;
     io.KeyMap[ImGuiKey_LeftArrow] = sf::Keyboard::Left;
     io.KeyMap[ImGuiKey_RightArrow] = sf::Keyboard::Right;
@@ -70,7 +100,13 @@ void platform_init(ImGuiIO& io, bool with_clipboard) {
     }
 }
 
+void platform_shutdown(ImGuiIO& io) {
+    delete static_cast<PlatformData*>(io.BackendPlatformUserData);
+    io.BackendPlatformUserData = nullptr;
+}
+
 void platform_event(ImGuiIO& io, const sf::Event& event) {
+    PlatformData& d = data(io);
     switch (event.type) {
     case sf::Event::MouseMoved:
         io.MousePos = ImVec2(static_cast<float>(event.mouseMove.x), static_cast<float>(event.mouseMove.y));
@@ -82,7 +118,10 @@ void platform_event(ImGuiIO& io, const sf::Event& event) {
     case sf::Event::MouseButtonReleased: {
         int i = mouse_index(event.mouseButton.button);
         io.MousePos = ImVec2(static_cast<float>(event.mouseButton.x), static_cast<float>(event.mouseButton.y));
-        if (i >= 0) io.MouseDown[i] = event.type == sf::Event::MouseButtonPressed;
+        if (i >= 0) {
+            if (event.type == sf::Event::MouseButtonPressed) press(io.MouseDown[i], d.mouse_fresh[i], d.mouse_release_next[i]);
+            else release(io.MouseDown[i], d.mouse_fresh[i], d.mouse_release[i]);
+        }
         break;
     }
     case sf::Event::MouseWheelScrolled:
@@ -92,9 +131,12 @@ void platform_event(ImGuiIO& io, const sf::Event& event) {
     case sf::Event::KeyPressed:
     case sf::Event::KeyReleased: {
         int code = event.key.code;
-        if (code >= 0 && code < static_cast<int>(IM_ARRAYSIZE(io.KeysDown)))
-            io.KeysDown[code] = event.type == sf::Event::KeyPressed;
+        if (code >= 0 && code < static_cast<int>(IM_ARRAYSIZE(io.KeysDown))) {
+            if (event.type == sf::Event::KeyPressed) press(io.KeysDown[code], d.key_fresh[code], d.key_release_next[code]);
+            else release(io.KeysDown[code], d.key_fresh[code], d.key_release[code]);
+        }
         set_modifiers(io, event.key);
+        d.last_key = event.key;
         break;
     }
     case sf::Event::TextEntered:
@@ -106,6 +148,7 @@ void platform_event(ImGuiIO& io, const sf::Event& event) {
         // Keys released while another window has the focus never reach us: forget them all.
         for (bool& k : io.KeysDown) k = false;
         for (bool& b : io.MouseDown) b = false;
+        d = PlatformData{};
         io.KeyCtrl = io.KeyShift = io.KeyAlt = io.KeySuper = false;
         break;
     default:
@@ -114,6 +157,25 @@ void platform_event(ImGuiIO& io, const sf::Event& event) {
 }
 
 void platform_new_frame(ImGuiIO& io, sf::Vector2u display_size, float seconds) {
+    PlatformData& d = data(io);
+    // Releases deferred in the previous frame happen now; this frame's wait for the next.
+    for (int i = 0; i < 5; ++i) {
+        if (d.mouse_release_next[i]) io.MouseDown[i] = false;
+        d.mouse_release_next[i] = d.mouse_release[i];
+        d.mouse_release[i] = d.mouse_fresh[i] = false;
+    }
+    for (int k = 0; k < 512; ++k) {
+        if (d.key_release_next[k]) io.KeysDown[k] = false;
+        d.key_release_next[k] = d.key_release[k];
+        d.key_release[k] = d.key_fresh[k] = false;
+    }
+    // A shortcut tapped within one frame (Ctrl down, S down, S up, Ctrl up) has already
+    // reported "no Ctrl" by now; the modifier keys' own (deferred) state keeps it for this frame.
+    auto down = [&](sf::Keyboard::Key k) { return io.KeysDown[k]; };
+    io.KeyCtrl = d.last_key.control || down(sf::Keyboard::LControl) || down(sf::Keyboard::RControl);
+    io.KeyShift = d.last_key.shift || down(sf::Keyboard::LShift) || down(sf::Keyboard::RShift);
+    io.KeyAlt = d.last_key.alt || down(sf::Keyboard::LAlt) || down(sf::Keyboard::RAlt);
+    io.KeySuper = d.last_key.system || down(sf::Keyboard::LSystem) || down(sf::Keyboard::RSystem);
     io.DisplaySize = ImVec2(static_cast<float>(display_size.x), static_cast<float>(display_size.y));
     io.DisplayFramebufferScale = ImVec2(1.0f, 1.0f);
     io.DeltaTime = seconds > 0.0f ? seconds : 1.0f / 60.0f; // ImGui asserts DeltaTime > 0

@@ -266,6 +266,7 @@ int main(int argc, char** argv) {
     }
     if (app.dirty) save_session(app);
     ImGui_ImplOpenGL2_Shutdown();
+    platform_shutdown(io);
     ImGui::DestroyContext();
     window.close();
 

@@ -38,15 +38,15 @@ void draw_selection_panel(App& app) {
         ImGui::TableSetupScrollFreeze(0, 1);
         ImGui::TableSetupColumn("term", ImGuiTableColumnFlags_WidthFixed, 62);
         ImGui::TableSetupColumn("Hz", ImGuiTableColumnFlags_WidthFixed, 72);
-        ImGui::TableSetupColumn("lands on");
+        ImGui::TableSetupColumn("lands on degree");
         ImGui::TableSetupColumn("dev. c", ImGuiTableColumnFlags_WidthFixed, 62);
         ImGui::TableHeadersRow();
         for (const DyadTones& d : a.selection_tones) {
             ImGui::TableNextRow();
             ImGui::TableNextColumn();
-            ImGui::TextDisabled("%d-%d", d.low.degree, d.high.degree);
-            ImGui::TableNextColumn();
             ImGui::TextDisabled("dyad");
+            ImGui::TableNextColumn();
+            ImGui::TextDisabled("%d to %d", d.low.degree, d.high.degree);
             for (const Tone& t : d.tones) {
                 ImGui::TableNextRow();
                 ImGui::TableNextColumn();
@@ -55,7 +55,9 @@ void draw_selection_panel(App& app) {
                 ImGui::TableNextColumn();
                 ImGui::TextUnformatted(fixed(t.hz, 2).c_str());
                 ImGui::TableNextColumn();
-                ImGui::TextUnformatted(note_label(kb, t.landing.degree, t.landing.period).c_str());
+                std::string on = std::to_string(t.landing.degree);
+                if (t.landing.period != 0) on += " (period " + std::to_string(t.landing.period) + ")";
+                ImGui::TextUnformatted(on.c_str());
                 ImGui::TableNextColumn();
                 ImU32 col = deviation_colour(std::abs(t.landing.deviation_cents), t.landing.exact, tol);
                 ImGui::PushStyleColor(ImGuiCol_Text, col);

@@ -26,8 +26,7 @@ void draw_grid_view(App& app) {
     if (ImGui::RadioButton("worst landing", !by_fit)) { s.grid_measure = "worst"; touch(app); }
     ImGui::SameLine();
     if (ImGui::RadioButton("fit (weighted rms)", by_fit)) { s.grid_measure = "fit"; touch(app); }
-    ImGui::SameLine();
-    ImGui::TextDisabled("  rows: lower degree, columns: upper degree (a period up on and left of the diagonal)");
+    ImGui::TextDisabled("rows: lower degree; columns: upper degree (a period up on and left of the diagonal)");
     if (a.grid.empty()) {
         ImGui::TextWrapped("%s", a.error.empty() ? "The grid is empty." : a.error.c_str());
         return;

@@ -15,7 +15,7 @@ namespace {
 
 // Screen offset of lattice point (e3, e5, e7) at zoom 1.
 ImVec2 lattice_offset(const std::array<int, 3>& e) {
-    return ImVec2(e[0] * 120.0f + e[2] * 46.0f, -e[1] * 100.0f - e[2] * 64.0f);
+    return ImVec2(e[0] * 120.0f + e[2] * 62.0f, -e[1] * 104.0f - e[2] * 40.0f);
 }
 
 std::string exponent_text(const std::array<int, 3>& e) {
@@ -124,6 +124,11 @@ void draw_lattice_view(App& app) {
     for (int note : app.session.selection) selected_degrees[static_cast<std::size_t>(note % n)] = 1;
     int hovered_degree = -1;
     float off_x = p0.x + 20;
+    struct Label {
+        ImVec2 centre;
+        std::string text;
+    };
+    std::vector<Label> labels; // drawn last, over the resultant marks
     for (int i = 0; i < n; ++i) {
         const LatticePlace& pl = places[static_cast<std::size_t>(i)];
         ImVec2 c;
@@ -142,9 +147,7 @@ void draw_lattice_view(App& app) {
         ImVec2 ts = ImGui::CalcTextSize(idx.c_str());
         dl->AddText(ImVec2(c.x - ts.x * 0.5f, c.y - ts.y * 0.5f), IM_COL32(255, 255, 255, 255), idx.c_str());
         const Pitch& p = kb.scale().degree(static_cast<std::size_t>(i));
-        std::string label = p.is_rational() ? p.str() : (pl.how == LatticeHow::none ? fixed(p.cents(), 1) + " c" : "\xe2\x89\x88" + pl.just.str());
-        ImVec2 ls = ImGui::CalcTextSize(label.c_str());
-        dl->AddText(ImVec2(c.x - ls.x * 0.5f, c.y + r + 2), IM_COL32(225, 228, 235, 255), label.c_str());
+        labels.push_back({c, p.is_rational() ? p.str() : (pl.how == LatticeHow::none ? fixed(p.cents(), 1) + " c" : "\xe2\x89\x88" + pl.just.str())});
         ImVec2 m = io.MousePos;
         if (hovered && (m.x - c.x) * (m.x - c.x) + (m.y - c.y) * (m.y - c.y) <= r * r) hovered_degree = i;
     }
@@ -152,44 +155,66 @@ void draw_lattice_view(App& app) {
         dl->AddText(ImVec2(p0.x + 20, p1.y - 22), IM_COL32(180, 180, 190, 255), "off the lattice (no 7-limit ratio within the lattice tolerance)");
 
     // Resultant marks: on a ring around their lattice point, coloured by landing deviation.
-    std::map<std::array<int, 3>, int> ring;
-    const Tone* hovered_tone = nullptr;
-    const LatticePlace* hovered_place = nullptr;
-    const DyadTones* hovered_dyad = nullptr;
+    // The worst landings come first; a point shows at most 12 marks and counts the rest.
+    struct Mark {
+        const Tone* tone;
+        const LatticePlace* place;
+        const DyadTones* dyad;
+    };
+    std::map<std::array<int, 3>, std::vector<Mark>> marks;
     int unplaced = 0;
     for (std::size_t d = 0; d < a.selection_tones.size(); ++d) {
         const auto& dyad = a.selection_tones[d];
         for (std::size_t t = 0; t < dyad.tones.size(); ++t) {
-            const Tone& tone = dyad.tones[t];
             const LatticePlace& pl = a.tone_places[d][t];
-            if (pl.how == LatticeHow::none) {
-                ++unplaced;
-                continue;
-            }
-            int k = ring[pl.exponents]++;
-            float ang = -1.5708f + 0.55f * static_cast<float>(k);
-            float rr = r + 12.0f + 9.0f * static_cast<float>(k / 11);
-            ImVec2 c0 = at(pl.exponents);
+            if (pl.how == LatticeHow::none) ++unplaced;
+            else marks[pl.exponents].push_back({&dyad.tones[t], &pl, &dyad});
+        }
+    }
+    const Tone* hovered_tone = nullptr;
+    const LatticePlace* hovered_place = nullptr;
+    const DyadTones* hovered_dyad = nullptr;
+    const std::size_t shown_max = 12;
+    for (auto& [exponents, list] : marks) {
+        std::stable_sort(list.begin(), list.end(), [](const Mark& x, const Mark& y) {
+            auto key = [](const Mark& m) { return m.tone->landing.exact ? -1.0 : std::abs(m.tone->landing.deviation_cents); };
+            return key(x) > key(y);
+        });
+        ImVec2 c0 = at(exponents);
+        const float rr = r + 11.0f;
+        for (std::size_t k = 0; k < list.size() && k < shown_max; ++k) {
+            const Tone& tone = *list[k].tone;
+            float ang = -1.5708f + 0.5236f * static_cast<float>(k); // 30 degrees apart, from the top
             ImVec2 c(c0.x + std::cos(ang) * rr, c0.y + std::sin(ang) * rr);
             double dev = tone.landing.deviation_cents;
             ImU32 col = deviation_colour(std::abs(dev), tone.landing.exact, tol);
-            float mr = std::max(4.5f, 6.0f * cam.zoom);
+            float mr = std::max(4.0f, 5.5f * cam.zoom);
             if (tone.landing.exact || std::abs(dev) <= tol) diamond(dl, c, mr, col);
             else triangle(dl, c, mr, dev > 0, col);
             ImVec2 m = io.MousePos;
             if (hovered && std::abs(m.x - c.x) <= mr + 1 && std::abs(m.y - c.y) <= mr + 1) {
                 hovered_tone = &tone;
-                hovered_place = &pl;
-                hovered_dyad = &dyad;
+                hovered_place = list[k].place;
+                hovered_dyad = list[k].dyad;
             }
         }
+        if (list.size() > shown_max) {
+            std::string more = "+" + std::to_string(list.size() - shown_max);
+            dl->AddText(ImVec2(c0.x + rr + 8, c0.y - rr - 8), IM_COL32(200, 200, 210, 255), more.c_str());
+        }
+    }
+    for (const Label& l : labels) {
+        ImVec2 ls = ImGui::CalcTextSize(l.text.c_str());
+        ImVec2 q(l.centre.x - ls.x * 0.5f, l.centre.y + r + 13);
+        dl->AddRectFilled(ImVec2(q.x - 3, q.y - 1), ImVec2(q.x + ls.x + 3, q.y + ls.y + 1), IM_COL32(22, 24, 30, 220), 3.0f);
+        dl->AddText(q, IM_COL32(235, 238, 245, 255), l.text.c_str());
     }
 
     // Legend and axis key.
     float lh = draw_deviation_legend(dl, ImVec2(p0.x + 14, p0.y + 12), tol, true);
     const ImU32 key_col = IM_COL32(200, 205, 215, 255);
-    float kx = p1.x - 250, ky = p0.y + 12;
-    dl->AddRectFilled(ImVec2(kx - 8, ky - 4), ImVec2(p1.x - 6, ky + ImGui::GetTextLineHeight() * 4.4f), IM_COL32(10, 12, 16, 210), 4.0f);
+    float kx = p1.x - 250, ky = p1.y - ImGui::GetTextLineHeight() * 4.4f - 10;
+    dl->AddRectFilled(ImVec2(kx - 8, ky - 4), ImVec2(p1.x - 6, ky + ImGui::GetTextLineHeight() * 4.2f), IM_COL32(10, 12, 16, 210), 4.0f);
     dl->AddText(ImVec2(kx, ky), key_col, "octave-equivalent lattice");
     dl->AddText(ImVec2(kx, ky + ImGui::GetTextLineHeight()), edge_col[0], "\xe2\x86\x92 \xc3\x97" "3/2 (fifth)");
     dl->AddText(ImVec2(kx, ky + ImGui::GetTextLineHeight() * 2), edge_col[1], "\xe2\x86\x91 \xc3\x97" "5/4 (major third)");

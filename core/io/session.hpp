@@ -25,7 +25,7 @@ struct SessionSettings {
     double landing_tolerance_cents = 5.0;  ///< a resultant this close to a note "lands" on it
     double lattice_tolerance_cents = 20.0; ///< nearest-just search for the lattice
     int odd_limit = 15;                    ///< odd limit of that search
-    std::string grid_measure = "worst";    ///< dyad grid colour: "worst" deviation or "fit"
+    std::string grid_measure = "fit";      ///< dyad grid colour: "fit" or "worst" deviation
 };
 
 /// One open tuning.

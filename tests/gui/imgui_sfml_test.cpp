@@ -23,7 +23,10 @@ struct Context {
         int w, h;
         io.Fonts->GetTexDataAsRGBA32(&pixels, &w, &h); // builds the atlas on the CPU
     }
-    ~Context() { ImGui::DestroyContext(); }
+    ~Context() {
+        platform_shutdown(ImGui::GetIO());
+        ImGui::DestroyContext();
+    }
 };
 
 sf::Event mouse_move(int x, int y) {
@@ -83,6 +86,7 @@ TEST_CASE("mouse events set the position and the buttons", "[imgui_sfml]") {
     platform_event(io, mouse_button(true, sf::Mouse::Right, 10, 20));
     CHECK(io.MouseDown[1]);
     CHECK(io.MousePos.x == 10.0f);
+    platform_new_frame(io, {800, 600}, 0.01f); // a frame passes: the release is immediate
     platform_event(io, mouse_button(false, sf::Mouse::Right, 10, 20));
     CHECK_FALSE(io.MouseDown[1]);
     sf::Event left;
@@ -113,6 +117,7 @@ TEST_CASE("keys and modifiers reach ImGui, and focus loss releases them", "[imgu
     CHECK(io.KeyCtrl);
     CHECK_FALSE(io.KeyShift);
     CHECK(io.KeyMap[ImGuiKey_Escape] == sf::Keyboard::Escape);
+    platform_new_frame(io, {800, 600}, 0.01f);
     platform_event(io, key(false, sf::Keyboard::S));
     CHECK_FALSE(io.KeysDown[sf::Keyboard::S]);
     CHECK_FALSE(io.KeyCtrl);
@@ -142,6 +147,62 @@ TEST_CASE("a press and release over a button clicks it", "[imgui_sfml]") {
     run_frame(buf, sizeof buf);
     platform_event(io, mouse_button(false, sf::Mouse::Left, 300, 250));
     CHECK_FALSE(run_frame(buf, sizeof buf).clicked);
+}
+
+TEST_CASE("a press and release in the same frame still clicks", "[imgui_sfml]") {
+    Context c;
+    ImGuiIO& io = ImGui::GetIO();
+    char buf[32] = "";
+    platform_event(io, mouse_move(60, 40));
+    run_frame(buf, sizeof buf);
+    // A quick tap: both events before one frame. The button is down for that frame ...
+    platform_event(io, mouse_button(true, sf::Mouse::Left, 60, 40));
+    platform_event(io, mouse_button(false, sf::Mouse::Left, 60, 40));
+    CHECK_FALSE(run_frame(buf, sizeof buf).clicked);
+    CHECK(io.MouseDown[0]);
+    // ... and released in the next, which is when ImGui reports the click.
+    CHECK(run_frame(buf, sizeof buf).clicked);
+    CHECK_FALSE(io.MouseDown[0]);
+    CHECK_FALSE(run_frame(buf, sizeof buf).clicked);
+}
+
+TEST_CASE("a key tapped within one frame is seen as pressed once", "[imgui_sfml]") {
+    Context c;
+    ImGuiIO& io = ImGui::GetIO();
+    char buf[32] = "";
+    run_frame(buf, sizeof buf);
+    platform_event(io, key(true, sf::Keyboard::Num2));
+    platform_event(io, key(false, sf::Keyboard::Num2));
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK(ImGui::IsKeyPressed(sf::Keyboard::Num2, false));
+    ImGui::Render();
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK_FALSE(ImGui::IsKeyDown(sf::Keyboard::Num2));
+    CHECK_FALSE(ImGui::IsKeyPressed(sf::Keyboard::Num2, false));
+    ImGui::Render();
+}
+
+TEST_CASE("a Ctrl shortcut tapped within one frame keeps Ctrl for that frame", "[imgui_sfml]") {
+    Context c;
+    ImGuiIO& io = ImGui::GetIO();
+    char buf[32] = "";
+    run_frame(buf, sizeof buf);
+    // What a test driver sends for ctrl+s: Ctrl down, S down, S up, Ctrl up.
+    platform_event(io, key(true, sf::Keyboard::LControl, true));
+    platform_event(io, key(true, sf::Keyboard::S, true));
+    platform_event(io, key(false, sf::Keyboard::S, true));
+    platform_event(io, key(false, sf::Keyboard::LControl, false));
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK(io.KeyCtrl);
+    CHECK(ImGui::IsKeyPressed(sf::Keyboard::S, false));
+    ImGui::Render();
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK_FALSE(io.KeyCtrl);
+    ImGui::Render();
 }
 
 TEST_CASE("typed text reaches a focused text field, control characters do not", "[imgui_sfml]") {

@@ -69,7 +69,7 @@ TEST_CASE("a session reads back exactly as it was written", "[session]") {
     CHECK(back.settings.max_order == 3);
     CHECK(back.settings.landing_tolerance_cents == 2.5);
     CHECK(back.settings.span == 3);
-    CHECK(back.settings.grid_measure == "worst");
+    CHECK(back.settings.grid_measure == "fit");
     CHECK(back.selection == std::vector<int>{0, 2, 3});
     CHECK(back.view == "grid");
     CHECK(back.volume == 0.25);
@@ -149,7 +149,7 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
         REQUIRE_THROWS_WITH(parse_edited("\"span\": 3", "\"span\": 12"),
                             "s.json: error: \"settings.span\" must be an integer from 1 to 11, "
                             "found 12");
-        REQUIRE_THROWS_WITH(parse_edited("\"grid_measure\": \"worst\"", "\"grid_measure\": \"best\""),
+        REQUIRE_THROWS_WITH(parse_edited("\"grid_measure\": \"fit\"", "\"grid_measure\": \"best\""),
                             "s.json: error: grid measure \"best\" is neither \"worst\" nor \"fit\"");
         REQUIRE_THROWS_WITH(parse_edited("\"current\": 1", "\"current\": 2"),
                             "s.json: error: \"current\" must be an integer from 0 to 1, found 2");

@@ -1,0 +1,87 @@
+"""ctest (run inside xvfb-run): real mouse and keyboard input through xdotool. Opens the demo
+tuning, clicks the lattice nodes of degrees 0 (1/1) and 4 (3/2), presses 2 (dyad grid view) and
+Ctrl+S, and checks the saved session file; then Escape and Ctrl+Q, and checks again.
+usage: interaction_check.py TERZO_GUI TUNING WORKDIR"""
+import json
+import os
+import shutil
+import subprocess
+import sys
+import time
+
+sys.path.insert(0, os.path.dirname(os.path.abspath(__file__)))
+import gui_test_common as g
+
+gui, tuning, work = sys.argv[1:4]
+shutil.rmtree(work, ignore_errors=True)
+os.makedirs(work)
+session = os.path.join(work, "session.json")
+shot = os.path.join(work, "before.png")
+
+
+def xdo(*args):
+    subprocess.run(["xdotool", *args], check=True, timeout=10)
+
+
+def wait_for(predicate, what, seconds=10):
+    end = time.time() + seconds
+    while time.time() < end:
+        if predicate():
+            return
+        time.sleep(0.1)
+    raise AssertionError("timed out waiting for " + what)
+
+
+def read_session():
+    with open(session) as f:
+        return json.load(f)
+
+
+# Where the nodes are: the same window, fonts and layout as the interactive run, found in a
+# screenshot by the node colour. Degree 0 (1/1) is the node at the canvas centre and degree 4
+# (3/2) the one 120 pixels to its right (one step of 3 at zoom 1).
+subprocess.run([gui, "--fresh", "--screenshot", shot, tuning], check=True, timeout=60)
+nodes = g.blobs(g.read_png(shot), g.NODE)
+def nearest(x, y):
+    return min(nodes, key=lambda b: (b[0] - x) ** 2 + (b[1] - y) ** 2)
+n0 = nearest(630, 377)
+n4 = nearest(n0[0] + 120, n0[1])
+assert abs(n4[0] - n0[0] - 120) < 3 and abs(n4[1] - n0[1]) < 3, (n0, n4)
+print("degree 0 at", n0[:2], "degree 4 at", n4[:2])
+
+proc = subprocess.Popen([gui, "--fresh", "--session", session, tuning])
+try:
+    # The window exists and has drawn: the first autosave writes the session.
+    wait_for(lambda: subprocess.run(["xdotool", "search", "--name", "^terzo$"], capture_output=True).returncode == 0, "the window")
+    wait_for(lambda: os.path.exists(session), "the first autosave")
+    xdo("mousemove", str(round(n0[0])), str(round(n0[1])))
+    time.sleep(0.3)
+    xdo("click", "1")
+    time.sleep(0.3)
+    xdo("mousemove", str(round(n4[0])), str(round(n4[1])))
+    time.sleep(0.3)
+    xdo("click", "1")
+    time.sleep(0.3)
+    # Autosave waits a second after the last change, so wait for it to settle, then check that
+    # Ctrl+S saves the view change at once (within 0.9 s, before autosave could).
+    time.sleep(1.5)
+    xdo("key", "2")
+    xdo("key", "ctrl+s")
+    wait_for(lambda: read_session()["view"] == "grid", "Ctrl+S to save the grid view", seconds=0.9)
+    s = read_session()
+    print("after clicks:", s["selection"], s["view"])
+    assert s["selection"] == [0, 4], s["selection"]
+    assert s["view"] == "grid"
+    assert s["tunings"][0]["source"] == tuning
+    xdo("key", "Escape")
+    time.sleep(0.3)
+    xdo("key", "ctrl+q")
+    assert proc.wait(timeout=10) == 0
+    s = read_session()
+    print("after Escape and Ctrl+Q:", s["selection"], s["view"])
+    assert s["selection"] == []
+    assert s["view"] == "grid"
+finally:
+    if proc.poll() is None:
+        proc.kill()
+print("ok")
