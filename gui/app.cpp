@@ -94,14 +94,57 @@ void select_notes(App& app, std::vector<int> notes) {
     touch(app);
 }
 
+namespace {
+
+void poll_background(App& app) {
+    BackgroundFit& b = app.background;
+    if (b.job.valid() && b.job.wait_for(std::chrono::seconds(0)) == std::future_status::ready) {
+        BackgroundFit::Result r = b.job.get();
+        ++b.completed;
+        b.total_ms += r.ms;
+        if (r.generation == b.generation) {
+            app.analysis.keyboard_fit = r.fit;
+            app.analysis.keyboard_fit_error = r.error;
+        }
+    }
+    if (!b.job.valid() && b.wanted && app.analysis.keyboard) {
+        b.wanted = false;
+        b.job = std::async(std::launch::async, [kb = *app.analysis.keyboard, options = tone_options(app.session.settings),
+                                                generation = b.generation] {
+            BackgroundFit::Result r;
+            r.generation = generation;
+            auto t0 = std::chrono::steady_clock::now();
+            try {
+                r.fit = fit(keyboard_tones(kb, options));
+            } catch (const InputError& e) {
+                r.error = e.what();
+            }
+            r.ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
+            return r;
+        });
+    }
+}
+
+} // namespace
+
+bool background_pending(const App& app) {
+    return app.background.wanted || app.background.job.valid();
+}
+
 void refresh(App& app) {
-    if (!app.stale && !app.benchmark) return;
+    if (!app.stale && !app.benchmark) {
+        poll_background(app);
+        return;
+    }
+    ++app.background.generation;
+    app.background.wanted = true;
     app.stale = false;
     Analysis a;
     const SessionTuning* t = current_tuning(app);
     const SessionSettings& s = app.session.settings;
     if (!t) {
         app.analysis = std::move(a);
+        app.background.wanted = false;
         return;
     }
     // Each part is computed on its own, so one refused request (a limit) leaves the others.
@@ -113,6 +156,7 @@ void refresh(App& app) {
         a.keyboard.reset();
         a.error = e.what();
         app.analysis = std::move(a);
+        app.background.wanted = false;
         return;
     }
     const Keyboard& kb = *a.keyboard;
@@ -142,12 +186,10 @@ void refresh(App& app) {
     } catch (const InputError& e) {
         if (a.error.empty()) a.error = e.what();
     }
-    try {
-        a.keyboard_fit = fit(keyboard_tones(kb, options));
-    } catch (const InputError& e) {
-        if (a.error.empty()) a.error = e.what();
-    }
+    // Until the worker answers, the last keyboard fit stays on screen only if it is still
+    // valid; the status bar says it is being computed.
     app.analysis = std::move(a);
+    poll_background(app);
 }
 
 bool save_session(App& app) {

@@ -4,6 +4,8 @@
 #pragma once
 
 #include <chrono>
+#include <cstdint>
+#include <future>
 #include <filesystem>
 #include <optional>
 #include <string>
@@ -28,8 +30,25 @@ struct Analysis {
     std::optional<Fit> selection_fit;
     std::optional<CommonBass> selection_bass;  ///< for two or more selected notes
     std::vector<DyadCell> grid;                ///< n*n cells of the dyad grid
-    std::optional<Fit> keyboard_fit;           ///< every dyad of the whole keyboard
+    std::optional<Fit> keyboard_fit;           ///< every dyad of the whole keyboard (in the background)
+    std::string keyboard_fit_error;            ///< why that was refused (a limit)
     std::string error;                         ///< why a part could not be computed
+};
+
+/// The whole-keyboard fit (tens of milliseconds for 88 keys at order 5) runs on a worker
+/// thread so the window stays responsive; a result is used only if nothing changed meanwhile.
+struct BackgroundFit {
+    struct Result {
+        std::uint64_t generation = 0;
+        std::optional<Fit> fit;
+        std::string error;
+        double ms = 0.0;
+    };
+    std::future<Result> job;
+    bool wanted = false;           ///< a request is waiting for the worker to be free
+    std::uint64_t generation = 0;  ///< bumped by every recomputation of the analysis
+    std::size_t completed = 0;     ///< results received (for --bench-frames)
+    double total_ms = 0.0;         ///< their total time
 };
 
 /// Pan and zoom of the lattice view.
@@ -41,6 +60,7 @@ struct App {
     Session session;
     std::filesystem::path session_path; ///< where the session autosaves; empty: nowhere
     Analysis analysis;
+    BackgroundFit background;
     bool stale = true;       ///< analysis needs recomputing
     bool dirty = false;      ///< session changed since the last save
     std::chrono::steady_clock::time_point last_change{};
@@ -71,8 +91,11 @@ void touch(App& app);
 void toggle_note(App& app, int note);
 /// Replaces the selection.
 void select_notes(App& app, std::vector<int> notes);
-/// Recomputes the analysis through core when stale.
+/// Recomputes the analysis through core when stale (the whole-keyboard fit is requested from
+/// the worker), and collects or starts the background fit.
 void refresh(App& app);
+/// True while the background fit for the current settings is not in yet.
+bool background_pending(const App& app);
 /// Saves the session now (atomically); errors go to app.error.
 bool save_session(App& app);
 /// Saves when the session changed more than `delay` ago.

@@ -199,7 +199,8 @@ void status_bar(App& app, ImVec2 pos, ImVec2 size) {
     } else if (a.keyboard) {
         std::string fit = a.keyboard_fit ? "fit of every keyboard dyad " + fixed(a.keyboard_fit->rms_cents, 2) + " c rms (" +
                                                std::to_string(a.keyboard_fit->tones) + " tones, " + std::to_string(a.keyboard_fit->exact) + " exact)"
-                                         : a.error;
+                          : !a.keyboard_fit_error.empty() ? a.keyboard_fit_error
+                                                          : "computing the fit of every keyboard dyad...";
         ImGui::Text("%zu notes from %s Hz, order %d  |  %s  |  %s", a.keyboard->notes().size(), fixed(a.keyboard->ref_hz(), 3).c_str(),
                     app.session.settings.max_order, fit.c_str(), app.status.empty() ? "F1: help" : app.status.c_str());
     } else {
