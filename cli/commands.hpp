@@ -9,5 +9,7 @@ namespace terzo::cli {
 
 void add_inspect(CLI::App& app);
 void add_resultants(CLI::App& app);
+void add_sheet(CLI::App& app);
+void add_compare(CLI::App& app);
 
 } // namespace terzo::cli

@@ -11,6 +11,8 @@ int main(int argc, char** argv) {
     app.require_subcommand(1);
     terzo::cli::add_inspect(app);
     terzo::cli::add_resultants(app);
+    terzo::cli::add_sheet(app);
+    terzo::cli::add_compare(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {

@@ -70,6 +70,14 @@ Ratio Ratio::normalized(Big num, Big den) {
     return r;
 }
 
+Ratio Ratio::from_reduced(std::int64_t num, std::int64_t den) {
+    TERZO_ASSERT(den > 0 && num != INT64_MIN);
+    Ratio r;
+    r.num_ = num;
+    r.den_ = den;
+    return r;
+}
+
 Ratio Ratio::from_big(Big num, Big den) { return normalized(std::move(num), std::move(den)); }
 
 std::int64_t Ratio::num() const {
@@ -106,12 +114,18 @@ static Ratio add_small(std::int64_t a, std::int64_t b, std::int64_t c, std::int6
     std::int64_t g = std::gcd(b, d);
     i128 n = i128(a) * (d / g) + i128(c) * (b / g);
     i128 m = i128(b / g) * d;
+    if (fits64(n) && fits64(m)) {
+        // The common case: reduce with a 64-bit gcd, which is much cheaper than a 128-bit one.
+        std::int64_t n64 = std::int64_t(n), m64 = std::int64_t(m);
+        std::int64_t h = std::gcd(n64, m64);
+        return Ratio::from_reduced(n64 / h, m64 / h);
+    }
     u128 h = gcd128(abs128(n), u128(m));
     if (h > 1) {
         n /= i128(h);
         m /= i128(h);
     }
-    if (fits64(n) && fits64(m)) return Ratio(std::int64_t(n), std::int64_t(m));
+    if (fits64(n) && fits64(m)) return Ratio::from_reduced(std::int64_t(n), std::int64_t(m));
     return Ratio::from_big(to_big(n), to_big(m));
 }
 
@@ -130,12 +144,7 @@ Ratio operator*(const Ratio& x, const Ratio& y) {
         std::int64_t g2 = std::gcd(y.num_, x.den_);
         i128 n = i128(x.num_ / g1) * (y.num_ / g2);
         i128 m = i128(x.den_ / g2) * (y.den_ / g1);
-        if (fits64(n) && fits64(m)) {
-            Ratio r;
-            r.num_ = std::int64_t(n);
-            r.den_ = std::int64_t(m);
-            return r;
-        }
+        if (fits64(n) && fits64(m)) return Ratio::from_reduced(std::int64_t(n), std::int64_t(m));
         return Ratio::from_big(to_big(n), to_big(m));
     }
     return Ratio::normalized(x.big_num() * y.big_num(), x.big_den() * y.big_den());

@@ -73,6 +73,9 @@ public:
     /// "n/d" in lowest terms, always with the slash ("2/1", "-3/4").
     std::string str() const;
 
+    /// num/den already in lowest terms with den > 0 (checked only by the invariant's users).
+    static Ratio from_reduced(std::int64_t num, std::int64_t den);
+
 private:
     struct BigPair {
         Big num, den;

@@ -1,0 +1,134 @@
+#include <catch2/catch.hpp>
+
+#include <cstdio>
+#include <fstream>
+#include <sstream>
+#include <string>
+#include <sys/wait.h>
+
+#include <nlohmann/json.hpp>
+
+#include "core/analysis/report.hpp"
+#include "helpers.hpp"
+
+using namespace terzo;
+
+namespace {
+
+struct Run {
+    int status;
+    std::string out;
+};
+
+// Runs a shell command, capturing stdout (stderr goes to err_path when given).
+Run run(const std::string& cmd) {
+    Run r{-1, {}};
+    FILE* p = popen(cmd.c_str(), "r");
+    REQUIRE(p);
+    char buf[4096];
+    std::size_t n;
+    while ((n = std::fread(buf, 1, sizeof buf, p)) > 0) r.out.append(buf, n);
+    int st = pclose(p);
+    r.status = WIFEXITED(st) ? WEXITSTATUS(st) : -1;
+    return r;
+}
+
+std::string data(const char* name) { return std::string(TERZO_SOURCE_DIR) + "/tests/analysis/data/" + name; }
+std::string cli() { return std::string(TERZO_CLI); }
+
+std::string read(const std::string& path) {
+    std::ifstream in(path);
+    std::stringstream s;
+    s << in.rdbuf();
+    return s.str();
+}
+
+} // namespace
+
+TEST_CASE("terzo resultants agrees with an independent computation in Python fractions", "[report]") {
+    // The script rebuilds every tone and landing with fractions.Fraction (Python's standard
+    // library) and compares it with terzo's JSON: three scales, one with ratios beyond 64 bits
+    // once multiplied out, with partials and with chords.
+    const std::string script = std::string(TERZO_SOURCE_DIR) + "/tests/analysis/crosscheck_resultants.py";
+    const char* cases[] = {
+        "triad.scl",
+        "just12.scl --span 2 --order 5",
+        "just12.scl --chord 0,4,7,12 --order 4",
+        "large.scl --span 2 --order 4 --partials 2",
+        "large.scl --chord 0,1,3,5,9/7 --partials 3",
+    };
+    for (const char* c : cases) {
+        INFO(c);
+        Run r = run("python3 " + script + " " + cli() + " " + data("") + c + " 2>&1");
+        INFO(r.out);
+        CHECK(r.status == 0);
+        CHECK(r.out.rfind("ok: ", 0) == 0);
+    }
+}
+
+TEST_CASE("the JSON document has the documented keys", "[report]") {
+    Run r = run(cli() + " resultants " + data("triad.scl") + " --json");
+    REQUIRE(r.status == 0);
+    auto j = nlohmann::json::parse(r.out);
+    CHECK(j["ref_hz"] == 261.6255653);
+    CHECK(j["order"] == 3);
+    const auto& d = j["dyads"][0];
+    CHECK(d["low"]["degree"] == 0);
+    CHECK(d["low"]["period"] == 0);
+    CHECK(d["high"]["degree"] == 1);
+    const auto& t = d["tones"][0];
+    CHECK(t["a"] == -1);
+    CHECK(t["b"] == 1);
+    CHECK(t["order"] == 2);
+    CHECK(t["ratio"] == "1/4");
+    CHECK(t["landing"]["degree"] == 0);
+    CHECK(t["landing"]["period"] == -2);
+    CHECK(t["landing"]["deviation_cents"] == 0.0);
+    CHECK(t["landing"]["exact"] == true);
+    CHECK(std::abs(t["hz"].get<double>() - 261.6255653 / 4) < 1e-9);
+}
+
+TEST_CASE("the text report of the just triad matches the saved output", "[report]") {
+    Run r = run(cli() + " resultants " + data("triad.scl") + " --chord 0,1,2");
+    REQUIRE(r.status == 0);
+    CHECK(r.out == read(data("triad_chord.txt")));
+}
+
+TEST_CASE("a bad option prints one error naming it and nothing on stdout", "[report]") {
+    struct Bad {
+        const char* args;
+        const char* message;
+    } cases[] = {
+        {"--order 13", "--order: error: order 13 is outside the allowed range 2 to 12\n"},
+        {"--partials 33", "--partials: error: partials 33 is outside the allowed range 1 to 32\n"},
+        {"--span 12", "--span: error: span 12 is outside the allowed range 1 to 11 periods\n"},
+        {"--ref-hz -1", "--ref-hz: error: reference frequency -1.000000 Hz is outside the allowed range 0.001 to 100000 Hz\n"},
+        {"--chord 0,q", "--chord: error: chord note \"q\" is neither a degree number nor a ratio p/q\n"},
+        {"--span 11 --order 12", "--order: error: this request could compute 1738044 tones (8778 dyads), more than the limit of 1000000; lower --order, --span or --partials\n"},
+    };
+    for (const auto& c : cases) {
+        INFO(c.args);
+        Run out = run(cli() + " resultants " + data("just12.scl") + " " + c.args + " 2>/dev/null");
+        CHECK(out.status == 1);
+        CHECK(out.out.empty());
+        Run err = run(cli() + " resultants " + data("just12.scl") + " " + c.args + " 2>&1 >/dev/null");
+        CHECK(err.out == c.message);
+    }
+}
+
+TEST_CASE("the CSV form has one row per tone", "[report]") {
+    Run r = run(cli() + " resultants " + data("triad.scl") + " --csv");
+    REQUIRE(r.status == 0);
+    std::size_t rows = 0;
+    for (char ch : r.out) rows += ch == '\n';
+    CHECK(rows == 1 + 35); // header + the 35 tones the fractions check counts for triad.scl
+    CHECK(r.out.rfind("low_degree,low_period,low_hz,high_degree", 0) == 0);
+}
+
+TEST_CASE("labels and exact values print the way the README shows them", "[report]") {
+    CHECK(note_label(4, -2) == "4@-2");
+    Tone t;
+    CHECK(exact_text(t) == "-");
+    t.ratio = Ratio(1, 4);
+    CHECK(exact_text(t) == "1/4");
+}
