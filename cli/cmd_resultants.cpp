@@ -1,5 +1,4 @@
 #include <iostream>
-#include <sstream>
 
 #include "cli/commands.hpp"
 #include "core/analysis/report.hpp"
@@ -46,14 +45,14 @@ void add_resultants(CLI::App& app) {
             r.dyads = keyboard_tones(kb, opt);
         }
         r.fit = fit(r.dyads);
-        std::ostringstream out;
+        // Everything that can fail has run; the report is written straight out, dyad by dyad,
+        // so up to max_tones tones never need a second copy as one string or JSON tree.
         if (a->json)
-            out << resultants_json(r).dump(2) << '\n';
+            write_resultants_json(std::cout, r);
         else if (a->csv)
-            write_csv(out, tones_table(r.dyads));
+            write_tones_csv(std::cout, r.dyads);
         else
-            out << resultants_text(r);
-        std::cout << out.str();
+            write_resultants_text(std::cout, r);
     });
 }
 

@@ -11,5 +11,6 @@ void add_inspect(CLI::App& app);
 void add_resultants(CLI::App& app);
 void add_sheet(CLI::App& app);
 void add_compare(CLI::App& app);
+void add_render(CLI::App& app);
 
 } // namespace terzo::cli

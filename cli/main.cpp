@@ -13,6 +13,7 @@ int main(int argc, char** argv) {
     terzo::cli::add_resultants(app);
     terzo::cli::add_sheet(app);
     terzo::cli::add_compare(app);
+    terzo::cli::add_render(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {

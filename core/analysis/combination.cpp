@@ -110,6 +110,8 @@ std::vector<Tone> tones_of(const Keyboard& kb, const Note& low, const Note& high
     std::vector<Tone> out;
     std::vector<Tone> block;
     std::vector<std::size_t> order_index;
+    out.reserve(terms.size() * std::size_t(options.partials) * std::size_t(options.partials));
+    block.reserve(terms.size());
     for (int i = 1; i <= options.partials; ++i) {
         for (int j = 1; j <= options.partials; ++j) {
             block.clear();

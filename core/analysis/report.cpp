@@ -19,6 +19,14 @@ std::string note_text(const Note& n) {
     return s;
 }
 
+// Helmholtz level of each pure-tone term of a dyad (0 when the term is not on the ladder).
+int helmholtz_level(const std::vector<HelmholtzTone>& ladder, const Tone& t) {
+    if (t.low_partial != 1 || t.high_partial != 1) return 0;
+    for (const auto& h : ladder)
+        if (h.term == t.term) return h.level;
+    return 0;
+}
+
 json landing_json(const Landing& l) {
     return {{"degree", l.degree},
             {"period", l.period},
@@ -59,14 +67,23 @@ json tone_json(const Tone& t) {
             {"audibility", t.audibility}};
 }
 
-json resultants_json(const ResultantsReport& r) {
-    TERZO_ASSERT(r.keyboard);
-    json dyads = json::array();
-    for (const auto& d : r.dyads) {
-        json tones = json::array();
-        for (const auto& t : d.tones) tones.push_back(tone_json(t));
-        dyads.push_back({{"low", note_json(d.low)}, {"high", note_json(d.high)}, {"tones", std::move(tones)}});
+namespace {
+
+json dyad_json(const DyadTones& d) {
+    json tones = json::array();
+    const auto ladder = helmholtz_ladder(d.low.hz, d.high.hz, max_order);
+    for (const auto& t : d.tones) {
+        json j = tone_json(t);
+        int level = helmholtz_level(ladder, t);
+        j["helmholtz_level"] = level ? json(level) : json(nullptr);
+        tones.push_back(std::move(j));
     }
+    return {{"low", note_json(d.low)}, {"high", note_json(d.high)}, {"tones", std::move(tones)}};
+}
+
+// Everything but the dyads, with `dyads` standing in for them.
+json document(const ResultantsReport& r, json dyads) {
+    TERZO_ASSERT(r.keyboard);
     json doc = {{"tuning", r.keyboard->scale().description()},
                 {"ref_hz", r.keyboard->ref_hz()},
                 {"span", r.keyboard->span()},
@@ -104,6 +121,38 @@ json resultants_json(const ResultantsReport& r) {
     return doc;
 }
 
+} // namespace
+
+json resultants_json(const ResultantsReport& r) {
+    json dyads = json::array();
+    for (const auto& d : r.dyads) dyads.push_back(dyad_json(d));
+    return document(r, std::move(dyads));
+}
+
+void write_resultants_json(std::ostream& out, const ResultantsReport& r) {
+    if (r.dyads.empty()) {
+        out << document(r, json::array()).dump(2) << '\n';
+        return;
+    }
+    // The document with a marker where the dyads go; each dyad is dumped on its own and
+    // indented by the two levels it sits at, which is exactly what dump(2) would print.
+    const std::string marker = "\"@dyads@\"";
+    const std::string text = document(r, json("@dyads@")).dump(2);
+    const std::size_t at = text.find(marker);
+    TERZO_ASSERT(at != std::string::npos);
+    out << text.substr(0, at) << "[\n";
+    for (std::size_t i = 0; i < r.dyads.size(); ++i) {
+        const std::string d = dyad_json(r.dyads[i]).dump(2);
+        out << "    ";
+        for (char c : d) {
+            out << c;
+            if (c == '\n') out << "    ";
+        }
+        out << (i + 1 < r.dyads.size() ? ",\n" : "\n");
+    }
+    out << "  ]" << text.substr(at + marker.size()) << '\n';
+}
+
 Table dyad_table(const DyadTones& dyad, bool with_partials) {
     using A = Table::Align;
     Table t;
@@ -113,9 +162,10 @@ Table dyad_table(const DyadTones& dyad, bool with_partials) {
         t.header.push_back("partials");
         t.align.push_back(A::right);
     }
-    for (const char* h : {"Hz", "exact ratio", "lands on", "deviation c", "exact", "audibility"})
+    for (const char* h : {"Hz", "exact ratio", "lands on", "deviation c", "exact", "audibility", "Helmholtz"})
         t.header.push_back(h);
-    for (A a : {A::right, A::left, A::right, A::right, A::left, A::right}) t.align.push_back(a);
+    for (A a : {A::right, A::left, A::right, A::right, A::left, A::right, A::right}) t.align.push_back(a);
+    const auto ladder = helmholtz_ladder(dyad.low.hz, dyad.high.hz, max_order);
     for (const Tone& x : dyad.tones) {
         std::vector<std::string> row = {"(" + std::to_string(x.term.a) + "," + std::to_string(x.term.b) + ")",
                                         x.term.name(), std::to_string(x.term.order())};
@@ -126,32 +176,39 @@ Table dyad_table(const DyadTones& dyad, bool with_partials) {
         row.push_back(signed_fixed(x.landing.deviation_cents, 3));
         row.push_back(x.landing.exact ? "=" : "");
         row.push_back(fixed(x.audibility, 2));
+        int level = helmholtz_level(ladder, x);
+        row.push_back(level ? std::to_string(level) : "");
         t.add(std::move(row));
     }
     return t;
 }
 
-Table tones_table(const std::vector<DyadTones>& dyads) {
-    Table t;
-    t.header = {"low_degree", "low_period", "low_hz", "high_degree", "high_period", "high_hz",
-                "a", "b", "order", "name", "low_partial", "high_partial", "hz", "ratio",
-                "landing_degree", "landing_period", "deviation_cents", "exact", "audibility"};
-    for (const auto& d : dyads)
+void write_tones_csv(std::ostream& out, const std::vector<DyadTones>& dyads) {
+    out << "low_degree,low_period,low_hz,high_degree,high_period,high_hz,a,b,order,name,"
+           "low_partial,high_partial,hz,ratio,landing_degree,landing_period,deviation_cents,"
+           "exact,audibility\r\n";
+    for (const auto& d : dyads) {
+        const std::string dyad = std::to_string(d.low.degree) + ',' + std::to_string(d.low.period) + ',' +
+                                 fixed(d.low.hz, 6) + ',' + std::to_string(d.high.degree) + ',' +
+                                 std::to_string(d.high.period) + ',' + fixed(d.high.hz, 6) + ',';
         for (const Tone& x : d.tones)
-            t.add({std::to_string(d.low.degree), std::to_string(d.low.period), fixed(d.low.hz, 6),
-                   std::to_string(d.high.degree), std::to_string(d.high.period), fixed(d.high.hz, 6),
-                   std::to_string(x.term.a), std::to_string(x.term.b), std::to_string(x.term.order()),
-                   x.term.name(), std::to_string(x.low_partial), std::to_string(x.high_partial),
-                   fixed(x.hz, 6), x.ratio ? x.ratio->str() : "", std::to_string(x.landing.degree),
-                   std::to_string(x.landing.period), fixed(x.landing.deviation_cents, 6),
-                   x.landing.exact ? "true" : "false", fixed(x.audibility, 4)});
-    return t;
+            out << dyad << x.term.a << ',' << x.term.b << ',' << x.term.order() << ',' << x.term.name()
+                << ',' << x.low_partial << ',' << x.high_partial << ',' << fixed(x.hz, 6) << ','
+                << (x.ratio ? x.ratio->str() : "") << ',' << x.landing.degree << ',' << x.landing.period
+                << ',' << fixed(x.landing.deviation_cents, 6) << ',' << (x.landing.exact ? "true" : "false")
+                << ',' << fixed(x.audibility, 4) << "\r\n";
+    }
 }
 
 std::string resultants_text(const ResultantsReport& r) {
+    std::ostringstream out;
+    write_resultants_text(out, r);
+    return out.str();
+}
+
+void write_resultants_text(std::ostream& out, const ResultantsReport& r) {
     TERZO_ASSERT(r.keyboard);
     const Keyboard& kb = *r.keyboard;
-    std::ostringstream out;
     out << kb.scale().description() << '\n'
         << "reference " << fixed(kb.ref_hz(), 4) << " Hz = degree 0 of period 0; span "
         << kb.span() << (kb.span() == 1 ? " period" : " periods") << "; order up to "
@@ -196,8 +253,9 @@ std::string resultants_text(const ResultantsReport& r) {
            "  with the note exactly (proven with exact arithmetic, never by a tolerance).\n"
            "  exact ratio: tone / reference; '-' when not exact. audibility: a rough estimate in\n"
            "  [0, 1] from published psychoacoustic findings (see the README), not a measurement.\n"
-           "  fit weights each tone by audibility / (order - 1).\n";
-    return out.str();
+           "  Helmholtz: the tone's place in Helmholtz's ordering of difference tones (1: f_high - f_low,\n"
+           "  2: its difference with a primary, and so on). fit weights each tone by\n"
+           "  audibility / (order - 1).\n";
 }
 
 } // namespace terzo

@@ -4,6 +4,7 @@
 #pragma once
 
 #include <optional>
+#include <ostream>
 #include <string>
 #include <vector>
 
@@ -34,17 +35,24 @@ std::string exact_text(const Tone& tone);
 /// {"degree", "period", "hz", "ratio"} for one note.
 nlohmann::ordered_json note_json(const Note& note);
 /// {"a", "b", "order", "name", "low_partial", "high_partial", "hz", "ratio", "exact_value",
-///  "landing": {"degree", "period", "deviation_cents", "exact"}, "audibility"}.
+///  "landing": {"degree", "period", "deviation_cents", "exact"}, "audibility"}; the document
+///  adds "helmholtz_level" (its dyad is needed to know it).
 nlohmann::ordered_json tone_json(const Tone& tone);
 /// The whole document (see the README).
 nlohmann::ordered_json resultants_json(const ResultantsReport& report);
+/// The same document written dyad by dyad, text identical to resultants_json(r).dump(2), so
+/// a million tones never sit in memory as one JSON tree.
+void write_resultants_json(std::ostream& out, const ResultantsReport& report);
 
 /// One dyad's tones: term, name, order, (partials), Hz, exact ratio, landing, deviation.
 Table dyad_table(const DyadTones& dyad, bool with_partials);
-/// Every tone of every dyad in one table, one row per tone, for CSV.
-Table tones_table(const std::vector<DyadTones>& dyads);
+/// Every tone of every dyad as CSV, one row per tone, written row by row (no field needs
+/// quoting: numbers, fixed names and ratios).
+void write_tones_csv(std::ostream& out, const std::vector<DyadTones>& dyads);
 /// The human-readable report: a heading per dyad, its table, the chord's bass, the fit and
-/// a legend.
+/// a legend, written dyad by dyad.
+void write_resultants_text(std::ostream& out, const ResultantsReport& report);
+/// The same report as one string.
 std::string resultants_text(const ResultantsReport& report);
 
 } // namespace terzo

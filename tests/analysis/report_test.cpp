@@ -125,6 +125,23 @@ TEST_CASE("the CSV form has one row per tone", "[report]") {
     CHECK(r.out.rfind("low_degree,low_period,low_hz,high_degree", 0) == 0);
 }
 
+TEST_CASE("the streamed JSON is the same text as the whole document", "[report]") {
+    Keyboard kb(test::just12());
+    ResultantsReport r;
+    r.keyboard = &kb;
+    r.chord = parse_chord("0,4,7", kb, {"--chord"});
+    r.dyads = chord_tones(kb, *r.chord, r.options);
+    r.bass = common_bass(kb, *r.chord);
+    r.fit = fit(r.dyads);
+    std::ostringstream streamed;
+    write_resultants_json(streamed, r);
+    CHECK(streamed.str() == resultants_json(r).dump(2) + "\n");
+    r.dyads.clear();
+    std::ostringstream empty;
+    write_resultants_json(empty, r);
+    CHECK(empty.str() == resultants_json(r).dump(2) + "\n");
+}
+
 TEST_CASE("labels and exact values print the way the README shows them", "[report]") {
     CHECK(note_label(4, -2) == "4@-2");
     Tone t;

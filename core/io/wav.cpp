@@ -1,0 +1,87 @@
+#include "core/io/wav.hpp"
+
+#include <algorithm>
+#include <cstring>
+
+#include <sndfile.h>
+
+#include "core/error.hpp"
+
+namespace terzo {
+
+namespace {
+
+// A growable in-memory file for libsndfile's virtual I/O. libsndfile seeks back to the
+// header when it closes a file to fill in the sizes, so writes may land anywhere.
+struct MemoryFile {
+    std::string bytes;
+    sf_count_t pos = 0;
+};
+
+sf_count_t mem_length(void* user) { return sf_count_t(static_cast<MemoryFile*>(user)->bytes.size()); }
+
+sf_count_t mem_seek(sf_count_t offset, int whence, void* user) {
+    auto* m = static_cast<MemoryFile*>(user);
+    sf_count_t base = whence == SEEK_SET ? 0 : whence == SEEK_CUR ? m->pos : sf_count_t(m->bytes.size());
+    if (base + offset < 0) return -1;
+    m->pos = base + offset;
+    return m->pos;
+}
+
+sf_count_t mem_read(void* ptr, sf_count_t count, void* user) {
+    auto* m = static_cast<MemoryFile*>(user);
+    sf_count_t available = std::max<sf_count_t>(0, sf_count_t(m->bytes.size()) - m->pos);
+    sf_count_t n = std::min(count, available);
+    if (n > 0) std::memcpy(ptr, m->bytes.data() + m->pos, std::size_t(n));
+    m->pos += n;
+    return n;
+}
+
+sf_count_t mem_write(const void* ptr, sf_count_t count, void* user) {
+    auto* m = static_cast<MemoryFile*>(user);
+    if (std::size_t(m->pos + count) > m->bytes.size()) m->bytes.resize(std::size_t(m->pos + count));
+    std::memcpy(m->bytes.data() + m->pos, ptr, std::size_t(count));
+    m->pos += count;
+    return count;
+}
+
+sf_count_t mem_tell(void* user) { return static_cast<MemoryFile*>(user)->pos; }
+
+} // namespace
+
+std::string sample_format_name(SampleFormat f) {
+    return f == SampleFormat::int16 ? "int16" : "float32";
+}
+
+std::string encode_wav(const std::vector<double>& samples, const WavFormat& format) {
+    SF_VIRTUAL_IO io{mem_length, mem_seek, mem_read, mem_write, mem_tell};
+    MemoryFile file;
+    SF_INFO info{};
+    info.samplerate = format.sample_rate;
+    info.channels = 1;
+    info.format = SF_FORMAT_WAV |
+                  (format.sample_format == SampleFormat::int16 ? SF_FORMAT_PCM_16 : SF_FORMAT_FLOAT);
+    TERZO_ASSERT(sf_format_check(&info));
+    SNDFILE* sf = sf_open_virtual(&io, SFM_WRITE, &info, &file);
+    if (!sf) fail({"wav", 0, 0}, std::string("cannot encode: ") + sf_strerror(nullptr));
+    // Without clipping libsndfile wraps out-of-range values around to the opposite sign.
+    sf_command(sf, SFC_SET_CLIPPING, nullptr, SF_TRUE);
+    // The float format's optional PEAK chunk carries a time stamp: leave it out so the same
+    // render always gives the same bytes.
+    sf_command(sf, SFC_SET_ADD_PEAK_CHUNK, nullptr, SF_FALSE);
+    const sf_count_t written = sf_write_double(sf, samples.data(), sf_count_t(samples.size()));
+    const std::string problem = written == sf_count_t(samples.size()) ? "" : sf_strerror(sf);
+    const int closed = sf_close(sf);
+    if (!problem.empty() || closed != 0)
+        fail({"wav", 0, 0}, "cannot encode: " + (problem.empty() ? sf_error_number(closed) : problem));
+    return std::move(file.bytes);
+}
+
+void write_wav(const std::filesystem::path& path, const std::vector<double>& samples,
+               const WavFormat& format, Overwrite overwrite) {
+    const std::string bytes = encode_wav(samples, format);
+    write_file_atomically(path, [&](std::ostream& out) { out.write(bytes.data(), std::streamsize(bytes.size())); },
+                          overwrite);
+}
+
+} // namespace terzo

@@ -1,0 +1,127 @@
+// WAV encoding checked by independent readers: Python's wave module (16-bit integer files)
+// and sox (both formats; `sox --i` prints header fields one at a time).
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+#include <string>
+#include <unistd.h>
+
+#include "core/error.hpp"
+#include "core/io/wav.hpp"
+
+using namespace terzo;
+namespace fs = std::filesystem;
+
+namespace {
+
+// A fresh folder under the system's temporary folder, removed at the end of the test.
+struct TempDir {
+    fs::path path;
+    TempDir() {
+        std::string t = (fs::temp_directory_path() / "terzo-wav-XXXXXX").string();
+        path = ::mkdtemp(t.data());
+    }
+    ~TempDir() { fs::remove_all(path); }
+};
+
+// Runs a shell command and returns its standard output (the test fails on a non-zero exit).
+std::string run(const std::string& command, const fs::path& out_file) {
+    const int rc = std::system((command + " > '" + out_file.string() + "'").c_str());
+    REQUIRE(rc == 0);
+    std::ifstream in(out_file);
+    std::stringstream s;
+    s << in.rdbuf();
+    std::string text = s.str();
+    while (!text.empty() && (text.back() == '\n' || text.back() == ' ')) text.pop_back();
+    return text;
+}
+
+std::vector<double> test_signal(std::size_t n) {
+    std::vector<double> x(n);
+    for (std::size_t i = 0; i < n; ++i) x[i] = 0.5 * std::sin(2 * M_PI * 440.0 * double(i) / 44100.0);
+    return x;
+}
+
+} // namespace
+
+TEST_CASE("a 16-bit WAV file reads back in Python's wave module with the same header and samples",
+          "[wav]") {
+    TempDir dir;
+    const fs::path file = dir.path / "tone.wav";
+    std::vector<double> x = test_signal(1000);
+    x[1] = 1.5;   // clipped to the largest value
+    x[2] = -1.5;  // clipped to the smallest value
+    x[3] = 0.25;
+    write_wav(file, x, WavFormat{44100, SampleFormat::int16});
+    const std::string py =
+        "import wave, struct\n"
+        "w = wave.open('" + file.string() + "', 'rb')\n"
+        "n = w.getnframes()\n"
+        "s = struct.unpack('<%dh' % n, w.readframes(n))\n"
+        "print(w.getnchannels(), w.getsampwidth(), w.getframerate(), n, w.getcomptype(), s[0], s[1], s[2], s[3], s[10])\n";
+    std::ofstream(dir.path / "read.py") << py;
+    const std::string got = run("python3 '" + (dir.path / "read.py").string() + "'", dir.path / "out.txt");
+    // Expected sample values: libsndfile scales +-1 to the 16-bit range and rounds; 0.25
+    // becomes 8192 (0.25 * 32768) and clipping pins +-1.5 to 32767 and -32768.
+    const long s10 = std::lround(0.5 * std::sin(2 * M_PI * 440.0 * 10 / 44100.0) * 32768.0);
+    CHECK(got == "1 2 44100 1000 NONE 0 32767 -32768 8192 " + std::to_string(s10));
+}
+
+TEST_CASE("a float WAV file reads back in sox with the same header", "[wav]") {
+    TempDir dir;
+    const fs::path file = dir.path / "tone.wav";
+    write_wav(file, test_signal(4800), WavFormat{48000, SampleFormat::float32});
+    const auto field = [&](const char* flag) {
+        return run(std::string("sox --i ") + flag + " '" + file.string() + "'", dir.path / "out.txt");
+    };
+    CHECK(field("-c") == "1");
+    CHECK(field("-r") == "48000");
+    CHECK(field("-s") == "4800");
+    CHECK(field("-b") == "32");
+    CHECK(field("-e") == "Floating Point PCM");
+    CHECK(field("-t") == "wav");
+}
+
+TEST_CASE("sox reads a 16-bit file's header the same way", "[wav]") {
+    TempDir dir;
+    const fs::path file = dir.path / "tone.wav";
+    write_wav(file, test_signal(44100), WavFormat{44100, SampleFormat::int16});
+    CHECK(run("sox --i -r '" + file.string() + "'", dir.path / "o") == "44100");
+    CHECK(run("sox --i -s '" + file.string() + "'", dir.path / "o") == "44100");
+    CHECK(run("sox --i -e '" + file.string() + "'", dir.path / "o") == "Signed Integer PCM");
+    CHECK(run("sox --i -b '" + file.string() + "'", dir.path / "o") == "16");
+    CHECK(run("sox --i -D '" + file.string() + "'", dir.path / "o") == "1.000000");
+}
+
+TEST_CASE("encoding the same samples twice gives the same bytes", "[wav]") {
+    const auto x = test_signal(500);
+    for (auto f : {SampleFormat::int16, SampleFormat::float32})
+        CHECK(encode_wav(x, WavFormat{48000, f}) == encode_wav(x, WavFormat{48000, f}));
+    // RIFF header: 44 bytes for 16-bit PCM, then two bytes per sample.
+    const std::string b = encode_wav(x, WavFormat{48000, SampleFormat::int16});
+    CHECK(b.size() == 44 + 2 * 500);
+    CHECK(b.substr(0, 4) == "RIFF");
+    CHECK(b.substr(8, 4) == "WAVE");
+}
+
+TEST_CASE("a WAV file is not overwritten unless asked", "[wav]") {
+    TempDir dir;
+    const fs::path file = dir.path / "tone.wav";
+    write_wav(file, test_signal(100), WavFormat{});
+    const auto size = fs::file_size(file);
+    REQUIRE_THROWS_WITH(write_wav(file, test_signal(200), WavFormat{}),
+                        file.string() + ": error: already exists and was not changed (allow "
+                                        "overwriting to replace it)");
+    CHECK(fs::file_size(file) == size);
+    write_wav(file, test_signal(200), WavFormat{}, Overwrite::allow);
+    CHECK(fs::file_size(file) == 44 + 2 * 200);
+}
+
+TEST_CASE("sample formats have the command line's names", "[wav]") {
+    CHECK(sample_format_name(SampleFormat::int16) == "int16");
+    CHECK(sample_format_name(SampleFormat::float32) == "float32");
+}
