@@ -186,6 +186,33 @@ void refresh(App& app) {
     } catch (const InputError& e) {
         if (a.error.empty()) a.error = e.what();
     }
+    // The keys and sheet views: 12-note tunings at the pitch reference, degree 0 on C.
+    try {
+        CompareOptions copt;
+        copt.reference = parse_pitch_reference(s.pitch_reference, {"pitch reference", 0, 0});
+        copt.fit_order = s.max_order;
+        std::size_t n = std::min(app.session.tunings.size(), max_compared_tunings);
+        for (std::size_t i = 0; i < n; ++i) {
+            const SessionTuning& st = app.session.tunings[i];
+            ComparedTuning c;
+            c.name = st.source;
+            c.description = st.scale.description();
+            c.size = st.scale.size();
+            if (st.scale.size() == 12) c.keys = compare_keys(st.scale, copt, st.source);
+            if (st.scale.size() <= max_class_degrees) c.classes = interval_classes(st.scale, 7, st.source);
+            a.comparison.push_back(std::move(c));
+        }
+        if (t->scale.size() == 12) {
+            SheetOptions sopt;
+            sopt.reference = copt.reference;
+            a.sheet = make_sheet(t->scale, sopt, t->source);
+        } else {
+            a.sheet_error = "The tuner's sheet is for 12-note tunings; " + t->source + " has " +
+                            std::to_string(t->scale.size()) + " degrees.";
+        }
+    } catch (const InputError& e) {
+        a.comparison_error = e.what();
+    }
     // Until the worker answers, the last keyboard fit stays on screen only if it is still
     // valid; the status bar says it is being computed.
     app.analysis = std::move(a);

@@ -12,10 +12,13 @@
 #include <vector>
 
 #include "core/analysis/chord.hpp"
+#include "core/analysis/compare.hpp"
+#include "core/analysis/sheet.hpp"
 #include "core/analysis/dyad_grid.hpp"
 #include "core/analysis/fit.hpp"
 #include "core/analysis/keyboard.hpp"
 #include "core/analysis/lattice.hpp"
+#include "core/io/compare_report.hpp"
 #include "core/io/session.hpp"
 #include "gui/file_dialog.hpp"
 
@@ -32,6 +35,10 @@ struct Analysis {
     std::vector<DyadCell> grid;                ///< n*n cells of the dyad grid
     std::optional<Fit> keyboard_fit;           ///< every dyad of the whole keyboard (in the background)
     std::string keyboard_fit_error;            ///< why that was refused (a limit)
+    std::vector<ComparedTuning> comparison;    ///< every open tuning (keys only for 12 notes)
+    std::string comparison_error;
+    std::optional<Sheet> sheet;                ///< the current tuning's sheet (12 notes only)
+    std::string sheet_error;
     std::string error;                         ///< why a part could not be computed
 };
 
@@ -56,8 +63,16 @@ struct LatticeCamera {
     float pan_x = 0.0f, pan_y = 0.0f, zoom = 1.0f;
 };
 
+class Player;
+
 struct App {
     Session session;
+    Player* player = nullptr;  ///< the sound output; none in --screenshot and --bench-frames
+    int listen_model = 0;      ///< index into the listen panel's models
+    std::string recipe_text;   ///< the recipe being typed in the tunings panel
+    std::optional<Scale> recipe_preview; ///< what it builds, updated on every keystroke
+    std::string recipe_error;
+    std::string listen_message;
     std::filesystem::path session_path; ///< where the session autosaves; empty: nowhere
     Analysis analysis;
     BackgroundFit background;

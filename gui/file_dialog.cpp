@@ -40,6 +40,8 @@ const char* title(FileDialog::Purpose p) {
     case FileDialog::Purpose::export_scl: return "Export the tuning as .scl";
     case FileDialog::Purpose::export_lattice_png: return "Export the lattice as PNG";
     case FileDialog::Purpose::save_session_as: return "Save the session as";
+    case FileDialog::Purpose::export_sheet_svg: return "Export the tuner's sheet as SVG";
+    case FileDialog::Purpose::export_comparison_csv: return "Export the comparison as CSV";
     }
     return "File";
 }

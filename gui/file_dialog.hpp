@@ -10,7 +10,7 @@ namespace terzo::gui {
 
 struct FileDialog {
     enum class Mode { open, save };
-    enum class Purpose { open_tuning, export_scl, export_lattice_png, save_session_as };
+    enum class Purpose { open_tuning, export_scl, export_lattice_png, save_session_as, export_sheet_svg, export_comparison_csv };
 
     bool visible = false;
     Mode mode = Mode::open;

@@ -11,6 +11,7 @@
 #include "core/io/atomic_file.hpp"
 #include "core/io/format.hpp"
 #include "core/io/scl.hpp"
+#include "core/io/sheet_report.hpp"
 #include "gui/views.hpp"
 
 namespace terzo::gui {
@@ -41,6 +42,8 @@ void open_dialog(App& app, FileDialog::Purpose p) {
     case FileDialog::Purpose::export_scl: app.dialog.show(FileDialog::Mode::save, p, ".scl", cwd, stem + "-copy.scl"); break;
     case FileDialog::Purpose::export_lattice_png: app.dialog.show(FileDialog::Mode::save, p, ".png", cwd, stem + "-lattice.png"); break;
     case FileDialog::Purpose::save_session_as: app.dialog.show(FileDialog::Mode::save, p, ".json", cwd, "session.json"); break;
+    case FileDialog::Purpose::export_sheet_svg: app.dialog.show(FileDialog::Mode::save, p, ".svg", cwd, stem + "-sheet.svg"); break;
+    case FileDialog::Purpose::export_comparison_csv: app.dialog.show(FileDialog::Mode::save, p, ".csv", cwd, "comparison.csv"); break;
     }
 }
 
@@ -77,6 +80,21 @@ void dialog_chosen(App& app, const std::filesystem::path& path) {
             app.lattice_png = path.string();
             app.lattice_png_force = d.replace;
             break;
+        case FileDialog::Purpose::export_sheet_svg: {
+            if (!app.analysis.sheet) return;
+            std::string svg = sheet_svg(*app.analysis.sheet, paper_a4());
+            write_file_atomically(path, [&](std::ostream& out) { out << svg; }, d.replace ? Overwrite::allow : Overwrite::refuse);
+            app.status = "exported " + path.string();
+            break;
+        }
+        case FileDialog::Purpose::export_comparison_csv: {
+            Table t = keys_long_table(app.analysis.comparison, Spelling::mixed);
+            Table c = classes_table(app.analysis.comparison);
+            write_file_atomically(path, [&](std::ostream& out) { write_csv(out, t.rows.empty() ? c : t); },
+                                  d.replace ? Overwrite::allow : Overwrite::refuse);
+            app.status = "exported " + path.string();
+            break;
+        }
         case FileDialog::Purpose::save_session_as:
             if (std::filesystem::exists(path) && !d.replace) fail({path.string(), 0, 0}, "already exists; tick \"replace\" to write over it");
             app.session_path = path;
@@ -107,6 +125,7 @@ void shortcuts(App& app) {
     if (pressed(sf::Keyboard::Num3)) set_view(app, "keys");
     if (pressed(sf::Keyboard::Num4)) set_view(app, "sheet");
     if (pressed(sf::Keyboard::F1)) app.show_help = !app.show_help;
+    if (pressed(sf::Keyboard::Space)) play_selection(app);
     if (pressed(sf::Keyboard::Escape) && !app.session.selection.empty()) select_notes(app, {});
     LatticeCamera& c = app.camera;
     if (ImGui::IsKeyPressed(sf::Keyboard::Equal) || ImGui::IsKeyPressed(sf::Keyboard::Add)) c.zoom = std::min(4.0f, c.zoom * 1.15f);
@@ -129,8 +148,8 @@ void menu_bar(App& app) {
         ImGui::Separator();
         if (ImGui::MenuItem("Export tuning as .scl...", "Ctrl+E", false, current_tuning(app) != nullptr)) open_dialog(app, FileDialog::Purpose::export_scl);
         if (ImGui::MenuItem("Export lattice as PNG...", "Ctrl+P", false, current_tuning(app) != nullptr)) open_dialog(app, FileDialog::Purpose::export_lattice_png);
-        ImGui::MenuItem("Export sheet (not built yet)", nullptr, false, false);
-        ImGui::MenuItem("Export comparison (not built yet)", nullptr, false, false);
+        if (ImGui::MenuItem("Export sheet as SVG...", nullptr, false, app.analysis.sheet.has_value())) open_dialog(app, FileDialog::Purpose::export_sheet_svg);
+        if (ImGui::MenuItem("Export comparison as CSV...", nullptr, false, !app.analysis.comparison.empty())) open_dialog(app, FileDialog::Purpose::export_comparison_csv);
         ImGui::Separator();
         if (ImGui::MenuItem("Quit", "Ctrl+Q")) app.quit = true;
         ImGui::EndMenu();

@@ -2,6 +2,7 @@
 // view/panel files; everything computed comes from core.
 #include <algorithm>
 #include <chrono>
+#include <memory>
 #include <csignal>
 #include <numeric>
 #include <cstdio>
@@ -18,6 +19,7 @@
 #include "core/error.hpp"
 #include "core/io/format.hpp"
 #include "gui/app.hpp"
+#include "gui/audio.hpp"
 #include "gui/image_file.hpp"
 #include "gui/imgui_sfml.hpp"
 #include "gui/views.hpp"
@@ -202,6 +204,13 @@ int main(int argc, char** argv) {
     platform_init(io, true);
     ImGui_ImplOpenGL2_Init();
 
+    // Sound only in interactive runs, created before the loop (no device is opened until Play).
+    std::unique_ptr<Player> player;
+    if (!batch) {
+        player = std::make_unique<Player>();
+        app.player = player.get();
+    }
+
     sf::Clock clock;
     std::vector<double> frame_ms;
     double part_ms[2] = {0, 0}; // analysis (refresh) and drawing, summed over measured frames
@@ -277,6 +286,8 @@ int main(int argc, char** argv) {
         ++frame;
     }
     if (app.dirty) save_session(app);
+    app.player = nullptr;
+    player.reset();
     ImGui_ImplOpenGL2_Shutdown();
     platform_shutdown(io);
     ImGui::DestroyContext();

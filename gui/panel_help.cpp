@@ -20,7 +20,7 @@ void draw_help_panel(App& app) {
         {"Ctrl+O", "open a tuning (.scl)"},        {"Ctrl+S", "save the session now"},
         {"Ctrl+E", "export the tuning as .scl"},  {"Ctrl+P", "export the lattice as PNG"},
         {"Ctrl+Tab", "next open tuning"},         {"1 2 3 4", "lattice, dyad grid, keys, sheet"},
-        {"Esc", "clear the selection"},           {"+ / -", "zoom the lattice"},
+        {"Esc", "clear the selection"},           {"Space", "play the selection (mind the volume)"},           {"+ / -", "zoom the lattice"},
         {"arrows", "pan the lattice"},            {"Home", "centre the lattice"},
         {"F1", "this help"},                      {"Ctrl+Q", "quit (the session is saved)"},
         {"mouse", "click: select; drag: pan; wheel: zoom"},

@@ -133,7 +133,7 @@ void draw_lattice_view(App& app) {
         const LatticePlace& pl = places[static_cast<std::size_t>(i)];
         ImVec2 c;
         if (pl.how == LatticeHow::none) {
-            c = ImVec2(off_x + r, p1.y - r - 34);
+            c = ImVec2(off_x + r, p1.y - r - 36);
             off_x += 2 * r + 12;
         } else {
             int k = stacked[pl.exponents]++;
@@ -152,7 +152,7 @@ void draw_lattice_view(App& app) {
         if (hovered && (m.x - c.x) * (m.x - c.x) + (m.y - c.y) * (m.y - c.y) <= r * r) hovered_degree = i;
     }
     if (std::any_of(places.begin(), places.end(), [](const LatticePlace& p) { return p.how == LatticeHow::none; }))
-        dl->AddText(ImVec2(p0.x + 20, p1.y - 22), IM_COL32(180, 180, 190, 255), "off the lattice (no 7-limit ratio within the lattice tolerance)");
+        dl->AddText(ImVec2(p0.x + 20, p1.y - 2 * r - 62), IM_COL32(180, 180, 190, 255), "off the lattice (no 7-limit ratio within the lattice tolerance):");
 
     // Resultant marks: on a ring around their lattice point, coloured by landing deviation.
     // The worst landings come first; a point shows at most 12 marks and counts the rest.

@@ -22,6 +22,7 @@ void draw_tunings_panel(App& app);   ///< panel_tunings.cpp
 void draw_settings_panel(App& app);  ///< panel_settings.cpp
 void draw_selection_panel(App& app); ///< panel_selection.cpp: the selected notes' resultants
 void draw_listen_panel(App& app);    ///< panel_listen.cpp
+void play_selection(App& app);       ///< panel_listen.cpp: render the selection and play it
 void draw_help_panel(App& app);      ///< panel_help.cpp
 
 /// "degree 4" or "degree 4 (+1 period)": how notes are named on screen.

@@ -12,6 +12,7 @@
 #include "core/io/atomic_file.hpp"
 #include "core/io/format.hpp"
 #include "core/io/scl.hpp"
+#include "core/tuning/note_names.hpp"
 
 namespace terzo {
 
@@ -120,6 +121,7 @@ SessionSettings read_settings(const Json& j, const std::string& source) {
     s.lattice_tolerance_cents = r.number("lattice_tolerance_cents", 0.0, 600.0, true);
     s.odd_limit = r.integer("odd_limit", 1, 243);
     s.grid_measure = r.string("grid_measure");
+    s.pitch_reference = r.string("pitch_reference");
     r.no_other_keys();
     check_settings(s, source);
     return s;
@@ -133,7 +135,8 @@ OJson settings_json(const SessionSettings& s) {
             {"landing_tolerance_cents", s.landing_tolerance_cents},
             {"lattice_tolerance_cents", s.lattice_tolerance_cents},
             {"odd_limit", s.odd_limit},
-            {"grid_measure", s.grid_measure}};
+            {"grid_measure", s.grid_measure},
+            {"pitch_reference", s.pitch_reference}};
 }
 
 } // namespace
@@ -159,6 +162,7 @@ void check_settings(const SessionSettings& s, const std::string& source) {
             " cents is outside (0, 600]");
     if (s.odd_limit < 1 || s.odd_limit > 243)
         bad("odd limit " + std::to_string(s.odd_limit) + " is outside 1 to 243");
+    parse_pitch_reference(s.pitch_reference, {source, 0, 0});
     if (s.grid_measure != "worst" && s.grid_measure != "fit")
         bad("grid measure \"" + s.grid_measure + "\" is neither \"worst\" nor \"fit\"");
 }

@@ -26,6 +26,8 @@ struct SessionSettings {
     double lattice_tolerance_cents = 20.0; ///< nearest-just search for the lattice
     int odd_limit = 15;                    ///< odd limit of that search
     std::string grid_measure = "fit";      ///< dyad grid colour: "fit" or "worst" deviation
+    /// Reference of the keys and sheet views ("A4=415"); degree 0 of a 12-note tuning is C.
+    std::string pitch_reference = "A4=440";
 };
 
 /// One open tuning.

@@ -42,7 +42,8 @@ TEST_CASE("terzo inspect reports a malformed file on stderr with a non-zero exit
     auto missing = run_terzo("inspect --json " + (dir / "none.scl").string());
     CHECK(missing.status == 1);
     CHECK(missing.out.empty());
-    CHECK(missing.err == (dir / "none.scl").string() + ": error: no such file\n");
+    CHECK(missing.err == (dir / "none.scl").string() +
+                         ": error: no such file (a TUNING is a .scl file or a recipe such as \"equal 12\")\n");
     std::filesystem::remove_all(dir);
 }
 

@@ -24,6 +24,7 @@ Session sample() {
     s.current = 1;
     s.settings.reference_hz = 415.0;
     s.settings.max_order = 3;
+    s.settings.pitch_reference = "A4=415";
     s.settings.landing_tolerance_cents = 2.5;
     s.selection = {0, 2, 3};
     s.view = "grid";
@@ -70,6 +71,7 @@ TEST_CASE("a session reads back exactly as it was written", "[session]") {
     CHECK(back.settings.landing_tolerance_cents == 2.5);
     CHECK(back.settings.span == 3);
     CHECK(back.settings.grid_measure == "fit");
+    CHECK(back.settings.pitch_reference == "A4=415");
     CHECK(back.selection == std::vector<int>{0, 2, 3});
     CHECK(back.view == "grid");
     CHECK(back.volume == 0.25);
@@ -158,6 +160,10 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
                             "found \"map\"");
         REQUIRE_THROWS_WITH(parse_edited("\"volume\": 0.25", "\"volume\": 2"),
                             "s.json: error: \"volume\" must be a number from 0 to 1, found 2");
+    }
+    SECTION("a malformed pitch reference is reported by the note-name parser") {
+        REQUIRE_THROWS_WITH(parse_edited("\"A4=415\"", "\"A4=\""),
+                            "s.json: error: expected a frequency in Hz after '=' in \"A4=\"");
     }
     SECTION("bad selections") {
         // The current tuning has 3 degrees and the span is 3 periods: notes 0 to 9.
