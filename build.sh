@@ -3,6 +3,7 @@
 #   ./build.sh run    build, then open the demo (GUI when a display exists, else the terminal analysis)
 #   ./build.sh test   build, then run every test through ctest
 #   ./build.sh build  build only
+#   ./build.sh fuzz [SECONDS]  build the libFuzzer programs with clang and run each for SECONDS (60)
 # Environment: BUILD_DIR (default build), BUILD_TYPE (default Release), JOBS (default: all cores).
 set -euo pipefail
 cd "$(dirname "$0")"
@@ -69,9 +70,32 @@ case "$ACTION" in
     install_missing
     configure_and_build "$BUILD_DIR"
     (cd "$BUILD_DIR" && ctest --output-on-failure -j "$JOBS")
+    # The same suite for core and the CLI under AddressSanitizer and UBSan (no GUI, no benchmarks).
+    if [ "${TERZO_SKIP_SANITIZE:-0}" != 1 ]; then
+      configure_and_build "$BUILD_DIR-sanitize" -DTERZO_SANITIZE=ON -DTERZO_BUILD_GUI=OFF -DTERZO_BUILD_BENCH=OFF
+      (cd "$BUILD_DIR-sanitize" && ctest --output-on-failure -j "$JOBS")
+    fi
+    ;;
+  fuzz)
+    install_missing
+    seconds=${2:-60}
+    CXX=clang++ configure_and_build "$BUILD_DIR-fuzz" -DCMAKE_CXX_COMPILER=clang++ -DTERZO_FUZZ=ON \
+      -DTERZO_BUILD_GUI=OFF -DTERZO_BUILD_BENCH=OFF -DBUILD_TESTING=OFF
+    for exe in "$BUILD_DIR-fuzz"/fuzz/fuzz_*; do
+      name=$(basename "$exe"); name=${name#fuzz_}
+      work="$BUILD_DIR-fuzz/corpus/$name"; mkdir -p "$work" "$BUILD_DIR-fuzz/crashes"
+      echo "build.sh: fuzzing $name for $seconds s"
+      "$exe" -max_total_time="$seconds" -max_len=4096 -timeout=10 -rss_limit_mb=2048 \
+        -artifact_prefix="$BUILD_DIR-fuzz/crashes/$name-" -print_final_stats=1 \
+        "$work" "tests/fuzz/$name" 2>&1 | grep -E "DONE|stat::number_of_executed_units|stat::new_units_added|==[0-9]+==|SUMMARY|ERROR" || true
+      if ls "$BUILD_DIR-fuzz/crashes/$name-"* >/dev/null 2>&1; then
+        echo "build.sh: the fuzzer found a failing input for $name; it is in $BUILD_DIR-fuzz/crashes" >&2
+        exit 1
+      fi
+    done
     ;;
   *)
-    echo "usage: ./build.sh run|test|build" >&2
+    echo "usage: ./build.sh run|test|build|fuzz [SECONDS]" >&2
     exit 2
     ;;
 esac

@@ -12,5 +12,6 @@ void add_resultants(CLI::App& app);
 void add_sheet(CLI::App& app);
 void add_compare(CLI::App& app);
 void add_render(CLI::App& app);
+void add_export(CLI::App& app);
 
 } // namespace terzo::cli

@@ -14,10 +14,14 @@ int main(int argc, char** argv) {
     terzo::cli::add_sheet(app);
     terzo::cli::add_compare(app);
     terzo::cli::add_render(app);
+    terzo::cli::add_export(app);
     try {
         app.parse(argc, argv);
     } catch (const CLI::ParseError& e) {
-        return app.exit(e);
+        if (e.get_exit_code() == 0) return app.exit(e); // --help, --version
+        // One line in the same form as every other terzo error; exit status 2 for usage.
+        std::cerr << "terzo: error: " << e.what() << " (see terzo --help)\n";
+        return 2;
     } catch (const terzo::InputError& e) {
         std::cerr << e.what() << '\n';
         return 1;

@@ -5,6 +5,12 @@
 
 namespace terzo {
 
+std::string quoted(std::string_view text) {
+    constexpr std::size_t limit = 100;
+    if (text.size() <= limit) return "\"" + std::string(text) + "\"";
+    return "\"" + std::string(text.substr(0, limit)) + "...\"";
+}
+
 std::string format_error(const SourcePos& pos, const std::string& message) {
     std::string out = pos.source.empty() ? std::string("input") : pos.source;
     if (pos.line > 0) {

@@ -284,8 +284,9 @@ void check_tone_count(std::uint64_t dyads, const ToneOptions& options) {
 std::vector<Tone> dyad_tones(const Keyboard& keyboard, const Note& low, const Note& high,
                              const ToneOptions& options) {
     check_options(options);
-    TERZO_ASSERT(low.cents < high.cents);
-    return tones_of(keyboard, low, high, options, combination_terms(options.order));
+    const auto terms = combination_terms(options.order);
+    if (low.cents > high.cents) return tones_of(keyboard, high, low, options, terms);
+    return tones_of(keyboard, low, high, options, terms);
 }
 
 std::vector<DyadTones> keyboard_tones(const Keyboard& keyboard, const ToneOptions& options) {

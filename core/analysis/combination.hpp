@@ -83,7 +83,8 @@ struct ToneOptions {
 /// Throws InputError naming "--order" or "--partials" when an option is out of range.
 void check_options(const ToneOptions& options);
 
-/// All tones of one dyad (low below high).
+/// All tones of one dyad (given in either order, the lower note counts as low; a unison
+/// gives the multiples (a + b) * f).
 std::vector<Tone> dyad_tones(const Keyboard& keyboard, const Note& low, const Note& high,
                              const ToneOptions& options);
 

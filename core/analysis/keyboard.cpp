@@ -44,6 +44,11 @@ Keyboard::Keyboard(Scale scale, double ref_hz, int span)
         fail({"--span"}, "span " + std::to_string(span) + " is outside the allowed range 1 to " +
                              std::to_string(max_span) + " periods");
     TERZO_ASSERT(period_cents_ > 0.0);
+    // Landings count periods in an int; a period this small would make those counts (and
+    // the notes between two tones) absurd.
+    if (period_cents_ < min_period_cents)
+        fail({"tuning"}, "period of " + fixed(period_cents_, 6) + " cents is smaller than the " +
+                             fixed(min_period_cents, 0) + " cent a keyboard needs");
 
     degree_ratios_.reserve(scale_.size());
     for (const Pitch& d : scale_.degrees()) degree_ratios_.push_back(d.ratio());
@@ -59,6 +64,12 @@ Keyboard::Keyboard(Scale scale, double ref_hz, int span)
     for (int p = 0; p < span_; ++p)
         for (std::size_t d = 0; d < scale_.size(); ++d) notes_.push_back(note(int(d), p));
     notes_.push_back(note(0, span_));
+    for (const Note& n : notes_)
+        if (!(n.hz >= min_note_hz && n.hz <= max_note_hz))
+            fail({"tuning"}, "note " + std::to_string(n.degree) + "@" + std::to_string(n.period) +
+                                 " would sound at " + fixed(n.hz, 6) +
+                                 " Hz, outside the 0.000001 to 1000000000 Hz a keyboard allows; "
+                                 "check the tuning, --ref-hz and --span");
 
     for (std::size_t d = 0; d < scale_.size(); ++d) {
         double c = scale_.degree(d).cents();

@@ -18,6 +18,9 @@ inline constexpr double default_ref_hz = 261.6255653;
 inline constexpr int max_span = 11;             ///< periods
 inline constexpr double min_ref_hz = 0.001;     ///< Hz
 inline constexpr double max_ref_hz = 100000.0;  ///< Hz
+inline constexpr double min_period_cents = 1.0; ///< smallest period a keyboard accepts
+inline constexpr double min_note_hz = 1e-6;     ///< every keyboard note lies in this range
+inline constexpr double max_note_hz = 1e9;
 
 /// One note: a degree of the scale in a given period, with its frequency.
 struct Note {
@@ -35,7 +38,9 @@ struct Note {
 class Keyboard {
 public:
     /// Lays `scale` over `span` periods from `ref_hz`. Throws InputError naming "--ref-hz" or
-    /// "--span" when ref_hz is outside [min_ref_hz, max_ref_hz] or span outside [1, max_span].
+    /// "--span" when ref_hz is outside [min_ref_hz, max_ref_hz] or span outside [1, max_span],
+    /// and naming "tuning" when the period is below min_period_cents or a note would sound
+    /// outside [min_note_hz, max_note_hz].
     Keyboard(Scale scale, double ref_hz = default_ref_hz, int span = 1);
 
     const Scale& scale() const { return scale_; }

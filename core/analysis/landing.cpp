@@ -1,5 +1,6 @@
 #include "core/analysis/landing.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 namespace terzo {
@@ -21,14 +22,10 @@ Neighbours neighbours(const Keyboard& kb, double cents) {
         ++p;
     }
     // First entry strictly above `in`.
-    std::size_t lo = 0, hi = sorted.size();
-    while (lo < hi) {
-        std::size_t mid = (lo + hi) / 2;
-        if (sorted[mid].cents_in_period <= in)
-            lo = mid + 1;
-        else
-            hi = mid;
-    }
+    const std::size_t lo = std::size_t(
+        std::upper_bound(sorted.begin(), sorted.end(), in,
+                         [](double c, const Keyboard::SortedDegree& e) { return c < e.cents_in_period; }) -
+        sorted.begin());
     Neighbours n;
     auto set = [&](Landing& l, const Keyboard::SortedDegree& e, int in_period) {
         l.degree = e.degree;

@@ -53,17 +53,17 @@ std::optional<double> parse_cents(std::string_view t) {
 }
 
 Pitch parse_pitch(std::string_view token, const SourcePos& pos) {
-    std::string quoted = "\"" + std::string(token) + "\"";
+    const std::string q = quoted(token);
     if (token.find('.') != std::string_view::npos) {
         auto c = parse_cents(token);
-        if (!c) fail(pos, "expected cents such as 701.955, found " + quoted);
+        if (!c) fail(pos, "expected cents such as 701.955, found " + q);
         if (!std::isfinite(*c) || std::fabs(*c) > 1e7)
-            fail(pos, "cents value " + quoted + " is out of range (at most 10000000 in size)");
+            fail(pos, "cents value " + q + " is out of range (at most 10000000 in size)");
         return Pitch::from_cents(*c);
     }
     Ratio r = parse_ratio(token, pos);
-    if (r.sign() == 0) fail(pos, "ratio is zero in " + quoted + "; a pitch ratio must be positive");
-    if (r.sign() < 0) fail(pos, "ratio is negative in " + quoted + "; a pitch ratio must be positive");
+    if (r.sign() == 0) fail(pos, "ratio is zero in " + q + "; a pitch ratio must be positive");
+    if (r.sign() < 0) fail(pos, "ratio is negative in " + q + "; a pitch ratio must be positive");
     return Pitch::from_ratio(r);
 }
 
@@ -97,11 +97,11 @@ Scale read_scl(std::istream& in, const std::string& source) {
     std::size_t count = 0;
     for (char c : count_token) {
         if (c < '0' || c > '9')
-            fail(count_pos, "expected the note count (a whole number), found \"" +
-                                std::string(count_token) + "\"");
+            fail(count_pos, "expected the note count (a whole number), found " +
+                                quoted(count_token));
         count = count * 10 + std::size_t(c - '0');
         if (count > max_scale_size)
-            fail(count_pos, "note count " + std::string(count_token) + " is larger than " +
+            fail(count_pos, "note count " + std::string(count_token.substr(0, 40)) + " is larger than " +
                                 std::to_string(max_scale_size) + ", the largest scale terzo accepts");
     }
     if (count == 0) fail(count_pos, "note count is 0; a scale needs at least its period");

@@ -18,21 +18,24 @@ const Pitch& octave() {
 Scale harmonic_segment(std::int64_t low, std::int64_t high, std::string description) {
     TERZO_ASSERT(low >= 1 && low < high);
     std::vector<Pitch> degrees;
-    for (std::int64_t n = low + 1; n < high; ++n) degrees.push_back(Pitch::from_ratio(Ratio(n, low)));
+    for (std::int64_t n = low + 1; n < high; ++n)
+        degrees.push_back(Pitch::from_ratio(Ratio(n, low)));
     return Scale(std::move(description), std::move(degrees), Pitch::from_ratio(Ratio(high, low)));
 }
 
 Scale subharmonic_segment(std::int64_t low, std::int64_t high, std::string description) {
     TERZO_ASSERT(low >= 1 && low < high);
     std::vector<Pitch> degrees;
-    for (std::int64_t n = high - 1; n > low; --n) degrees.push_back(Pitch::from_ratio(Ratio(high, n)));
+    for (std::int64_t n = high - 1; n > low; --n)
+        degrees.push_back(Pitch::from_ratio(Ratio(high, n)));
     return Scale(std::move(description), std::move(degrees), Pitch::from_ratio(Ratio(high, low)));
 }
 
 Scale tonality_diamond(const std::vector<std::int64_t>& odds, std::string description) {
     std::vector<Pitch> pitches;
     for (std::int64_t a : odds)
-        for (std::int64_t b : odds) pitches.push_back(Pitch::from_ratio(Ratio(a, b)));
+        for (std::int64_t b : odds)
+            pitches.push_back(Pitch::from_ratio(Ratio(a, b)));
     return scale_from_pitch_set(std::move(description), pitches, octave());
 }
 
@@ -56,14 +59,17 @@ Scale product_set(int k, const std::vector<std::int64_t>& factors, std::string d
     TERZO_ASSERT(k >= 1 && k <= n);
     std::vector<Ratio> products;
     std::vector<int> pick(static_cast<std::size_t>(k));
-    for (int i = 0; i < k; ++i) pick[static_cast<std::size_t>(i)] = i;
+    for (int i = 0; i < k; ++i)
+        pick[static_cast<std::size_t>(i)] = i;
     for (;;) {
         Ratio product(1);
-        for (int i : pick) product *= Ratio(factors[static_cast<std::size_t>(i)]);
+        for (int i : pick)
+            product *= Ratio(factors[static_cast<std::size_t>(i)]);
         products.push_back(product);
         // Next combination in lexicographic order.
         int i = k - 1;
-        while (i >= 0 && pick[static_cast<std::size_t>(i)] == n - k + i) --i;
+        while (i >= 0 && pick[static_cast<std::size_t>(i)] == n - k + i)
+            --i;
         if (i < 0) break;
         ++pick[static_cast<std::size_t>(i)];
         for (int j = i + 1; j < k; ++j)
@@ -71,7 +77,8 @@ Scale product_set(int k, const std::vector<std::int64_t>& factors, std::string d
     }
     Ratio smallest = *std::min_element(products.begin(), products.end());
     std::vector<Pitch> pitches;
-    for (const Ratio& p : products) pitches.push_back(Pitch::from_ratio(p / smallest));
+    for (const Ratio& p : products)
+        pitches.push_back(Pitch::from_ratio(p / smallest));
     return scale_from_pitch_set(std::move(description), pitches, octave());
 }
 

@@ -16,23 +16,26 @@ bool looks_like_path(const std::string& a) {
         std::string s = suffix;
         if (a.size() < s.size()) return false;
         for (std::size_t i = 0; i < s.size(); ++i)
-            if (std::tolower(static_cast<unsigned char>(a[a.size() - s.size() + i])) != s[i]) return false;
+            if (std::tolower(static_cast<unsigned char>(a[a.size() - s.size() + i])) != s[i])
+                return false;
         return true;
     };
-    return ends_with(".scl") || a.find('/') != std::string::npos || a.find('\\') != std::string::npos ||
-           a.find('.') != std::string::npos;
+    return ends_with(".scl") || a.find('/') != std::string::npos ||
+           a.find('\\') != std::string::npos || a.find('.') != std::string::npos;
 }
 
 } // namespace
 
 Scale load_tuning(const std::string& argument) {
     if (argument.empty())
-        fail({"TUNING", 0, 0}, "empty tuning argument; give a .scl file or a recipe such as \"equal 12\"");
+        fail({"TUNING", 0, 0},
+             "empty tuning argument; give a .scl file or a recipe such as \"equal 12\"");
     std::error_code ec;
     if (std::filesystem::exists(argument, ec)) return read_scl_file(argument);
     if (starts_like_recipe(argument)) return build_recipe(argument);
     if (looks_like_path(argument))
-        fail({argument, 0, 0}, "no such file (a TUNING is a .scl file or a recipe such as \"equal 12\")");
+        fail({argument, 0, 0},
+             "no such file (a TUNING is a .scl file or a recipe such as \"equal 12\")");
     return build_recipe(argument); // explains that the first word is not a recipe kind
 }
 

@@ -52,7 +52,8 @@ Scale stretch_period(const Scale& scale, const Pitch& new_period, std::string de
         return Pitch::from_cents(d.cents() * new_period.cents() / scale.period().cents());
     };
     std::vector<Pitch> degrees;
-    for (std::size_t i = 1; i < scale.size(); ++i) degrees.push_back(stretch(scale.degree(i)));
+    for (std::size_t i = 1; i < scale.size(); ++i)
+        degrees.push_back(stretch(scale.degree(i)));
     return Scale(std::move(description), std::move(degrees), new_period);
 }
 

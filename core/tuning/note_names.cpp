@@ -10,8 +10,6 @@ namespace {
 
 int floor_div(int a, int b) { return a / b - ((a % b != 0) && ((a < 0) != (b < 0))); }
 
-std::string quoted(std::string_view s) { return "\"" + std::string(s) + "\""; }
-
 // Letter and accidentals at the front of text: the letter's natural pitch class, the net
 // number of semitones the accidentals add, and how many bytes were read.
 struct Spelled {

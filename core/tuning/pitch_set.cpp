@@ -48,7 +48,8 @@ Pitch exact_quotient(const Pitch& a, const Pitch& b) {
 }
 
 Pitch exact_power(const Pitch& p, const Ratio& e) {
-    if (p.is_rational() && e.is_integer() && e.is_small()) return Pitch::from_ratio(p.ratio()->pow(e.num()));
+    if (p.is_rational() && e.is_integer() && e.is_small())
+        return Pitch::from_ratio(p.ratio()->pow(e.num()));
     if (auto v = exact_vector(p)) return Pitch::from_vector(v->pow(e));
     return Pitch::from_cents(p.cents() * static_cast<double>(e.to_long_double()));
 }
@@ -64,6 +65,8 @@ Pitch reduce_into_period(const Pitch& p, const Pitch& period) {
     // Floating point proposes the number of periods; exact comparisons settle the edges
     // (a value exactly equal to a power of the period reduces to exactly 1/1).
     auto k = static_cast<std::int64_t>(std::floor(p.cents() / period.cents()));
+    // Well inside the period already: nothing to divide (saves big-number work in long chains).
+    if (k == 0 && p.cents() > 1e-6 && p.cents() < period.cents() - 1e-6) return p;
     Pitch r = exact_quotient(p, exact_power(period, Ratio(k)));
     auto is_unison = [](const Pitch& x) { return exactly_equal(x, Pitch()).value_or(false); };
     if (exactly_equal(r, period).value_or(false)) return Pitch();
@@ -77,7 +80,8 @@ Scale scale_from_pitch_set(std::string description, const std::vector<Pitch>& pi
                            const Pitch& period) {
     std::vector<Pitch> reduced;
     reduced.reserve(pitches.size());
-    for (const Pitch& p : pitches) reduced.push_back(reduce_into_period(p, period));
+    for (const Pitch& p : pitches)
+        reduced.push_back(reduce_into_period(p, period));
     std::stable_sort(reduced.begin(), reduced.end(),
                      [](const Pitch& a, const Pitch& b) { return a.cents() < b.cents(); });
     std::vector<Pitch> unique;

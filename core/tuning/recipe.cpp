@@ -17,7 +17,9 @@ namespace terzo {
 
 namespace {
 
-std::string in_quotes(std::string_view s) { return "\"" + std::string(s) + "\""; }
+std::string in_quotes(std::string_view s) {
+    return "\"" + std::string(s) + "\"";
+}
 
 [[noreturn]] void fail_at(int column, const std::string& message) {
     fail({"recipe", 1, column}, message);
@@ -28,7 +30,9 @@ struct Token {
     int column; // 1-based
 };
 
-bool is_space(char c) { return c == ' ' || c == '\t'; }
+bool is_space(char c) {
+    return c == ' ' || c == '\t';
+}
 
 // Words are separated by spaces; '|' and ':' are tokens of their own wherever they appear.
 std::vector<Token> tokenize(std::string_view text) {
@@ -41,7 +45,8 @@ std::vector<Token> tokenize(std::string_view text) {
             continue;
         }
         if (static_cast<unsigned char>(c) < 0x20 || c == 0x7f)
-            fail_at(static_cast<int>(i) + 1, "control character in the recipe; a recipe is one line of text");
+            fail_at(static_cast<int>(i) + 1,
+                    "control character in the recipe; a recipe is one line of text");
         std::size_t start = i;
         if (c == '|' || c == ':') {
             ++i;
@@ -76,7 +81,9 @@ struct Interval {
     }
 };
 
-bool is_digit(char c) { return c >= '0' && c <= '9'; }
+bool is_digit(char c) {
+    return c >= '0' && c <= '9';
+}
 
 bool is_recipe_kind(std::string_view word) {
     if (word.empty()) return false;
@@ -88,12 +95,14 @@ bool is_recipe_kind(std::string_view word) {
     }
 }
 
-std::string fraction_text(const Ratio& r) { return r.is_integer() ? r.big_num().str() : r.str(); }
+std::string fraction_text(const Ratio& r) {
+    return r.is_integer() ? r.big_num().str() : r.str();
+}
 
 // Reads the text of one token character by character, reporting columns inside it.
 class Cursor {
-public:
-    Cursor(const Token& t) : text_(t.text), base_(t.column) {}
+  public:
+    explicit Cursor(const Token& t) : text_(t.text), base_(t.column) {}
     bool done() const { return i_ >= text_.size(); }
     char peek() const { return done() ? '\0' : text_[i_]; }
     bool take(char c) {
@@ -112,18 +121,17 @@ public:
         while (is_digit(peek())) {
             v = v * 10 + (text_[i_] - '0');
             ++i_;
-            if (v > limit)
-                fail_at(col, what + " starting " + in_quotes(text_.substr(static_cast<std::size_t>(col - base_), 24)) +
-                                 " is larger than " + std::to_string(limit));
+            if (v > limit) fail_at(col, what + " is larger than " + std::to_string(limit));
         }
         return v;
     }
     void skip_digits() {
-        while (is_digit(peek())) ++i_;
+        while (is_digit(peek()))
+            ++i_;
     }
     std::size_t index() const { return i_; }
 
-private:
+  private:
     std::string_view text_;
     int base_;
     std::size_t i_ = 0;
@@ -136,27 +144,32 @@ private:
 //   exponent := whole number | '(' ['-'] whole number [ '/' whole number ] ')'
 // A '/' between two whole numbers is the same as a ratio, so 3/2 reads as expected.
 class IntervalReader {
-public:
+  public:
     explicit IntervalReader(const Token& t) : c_(t) {}
 
     Interval read_all() {
         if (c_.done()) fail_at(c_.column(), "expected an interval such as 3/2, 2^(1/31) or 700c");
         Interval v = expr();
         if (!c_.done())
-            fail_at(c_.column(), "unexpected " + in_quotes(c_.rest()) + " in the interval " + in_quotes(c_.text()));
+            fail_at(c_.column(), "unexpected " + in_quotes(c_.rest()) + " in the interval " +
+                                     in_quotes(c_.text()));
         if (std::fabs(v.cents) > 1e7)
             fail_at(c_.column() - static_cast<int>(c_.text().size()),
-                    "the interval " + in_quotes(c_.text()) + " is out of range (at most 10000000 cents in size)");
+                    "the interval " + in_quotes(c_.text()) +
+                        " is out of range (at most 10000000 cents in size)");
         return v;
     }
 
-private:
+  private:
     Interval expr() {
         Interval v = factor();
         for (;;) {
-            if (c_.take('*')) v = v.times(factor());
-            else if (c_.take('/')) v = v.over(factor());
-            else return v;
+            if (c_.take('*'))
+                v = v.times(factor());
+            else if (c_.take('/'))
+                v = v.over(factor());
+            else
+                return v;
         }
     }
 
@@ -170,8 +183,13 @@ private:
         int col = c_.column();
         char ch = c_.peek();
         if (c_.take('(')) {
+            if (++depth_ > max_depth)
+                fail_at(col, "parentheses nested more than " + std::to_string(max_depth) + " deep");
             Interval v = expr();
-            if (!c_.take(')')) fail_at(c_.column(), "expected ')' to close the '(' at column " + std::to_string(col));
+            if (!c_.take(')'))
+                fail_at(c_.column(),
+                        "expected ')' to close the '(' at column " + std::to_string(col));
+            --depth_;
             return v;
         }
         if (c_.take('P')) return Interval::of(pythagorean_comma());
@@ -179,7 +197,8 @@ private:
         if (c_.take('s')) return Interval::of(schisma());
         if (is_digit(ch) || ch == '.') return number();
         if (ch == '\0') fail_at(col, "the interval " + in_quotes(c_.text()) + " ends too early");
-        fail_at(col, "unexpected " + in_quotes(std::string(1, ch)) + " in the interval " + in_quotes(c_.text()) +
+        fail_at(col, "unexpected " + in_quotes(std::string(1, ch)) + " in the interval " +
+                         in_quotes(c_.text()) +
                          "; intervals are written like 3/2, 2^(1/31), (3/2)*S^(-1/4) or 700c");
     }
 
@@ -192,10 +211,12 @@ private:
         if (dot) c_.skip_digits();
         std::string_view digits = c_.text().substr(start, c_.index() - start);
         if (c_.take('c')) {
-            if (digits == ".") fail_at(col, "expected digits before 'c' in " + in_quotes(c_.text()));
+            if (digits == ".")
+                fail_at(col, "expected digits before 'c' in " + in_quotes(c_.text()));
             double v = std::strtod(std::string(digits).c_str(), nullptr);
             if (!std::isfinite(v) || v > 1e7)
-                fail_at(col, "cents value " + in_quotes(digits) + " is out of range (at most 10000000)");
+                fail_at(col,
+                        "cents value " + in_quotes(digits) + " is out of range (at most 10000000)");
             return {std::nullopt, v};
         }
         if (dot)
@@ -213,15 +234,15 @@ private:
         if (is_digit(c_.peek())) return Ratio(c_.number(max_recipe_exponent, "the exponent"));
         if (c_.peek() == '-')
             fail_at(col, "put a negative or fractional exponent in parentheses, as in ^(-1/4)");
-        if (!c_.take('('))
-            fail_at(col, "expected an exponent after '^', such as ^2 or ^(1/31)");
+        if (!c_.take('(')) fail_at(col, "expected an exponent after '^', such as ^2 or ^(1/31)");
         bool negative = c_.take('-');
         if (!is_digit(c_.peek())) fail_at(c_.column(), "expected a whole number in the exponent");
         long long num = c_.number(max_recipe_exponent, "the exponent's numerator");
         long long den = 1;
         if (c_.take('/')) {
             int den_col = c_.column();
-            if (!is_digit(c_.peek())) fail_at(den_col, "expected the exponent's denominator after '/'");
+            if (!is_digit(c_.peek()))
+                fail_at(den_col, "expected the exponent's denominator after '/'");
             den = c_.number(max_recipe_exponent, "the exponent's denominator");
             if (den == 0) fail_at(den_col, "the exponent's denominator is zero");
         }
@@ -229,7 +250,10 @@ private:
         return Ratio(negative ? -num : num, den);
     }
 
+    // Deep nesting would only exhaust the stack; no interval needs more than a few levels.
+    static constexpr int max_depth = 50;
     Cursor c_;
+    int depth_ = 0;
 };
 
 // The tempering of one fifth: "0", "wolf", or signed terms such as -P/4, -1/4S, -s,
@@ -243,16 +267,18 @@ std::optional<PrimeVector> read_tempering(const Token& t) {
         int term_col = c.column();
         int sign = c.take('-') ? -1 : (c.take('+') ? 1 : 0);
         if (sign == 0)
-            fail_at(term_col, "write each tempering with its sign: -P/4 narrows a fifth by a quarter "
-                              "Pythagorean comma, +P/4 widens it, 0 leaves it pure; found " +
-                                  in_quotes(c.rest()));
+            fail_at(term_col,
+                    "write each tempering with its sign: -P/4 narrows a fifth by a quarter "
+                    "Pythagorean comma, +P/4 widens it, 0 leaves it pure; found " +
+                        in_quotes(c.rest()));
         Ratio coefficient(1);
         if (is_digit(c.peek())) {
             long long num = c.number(max_recipe_exponent, "the fraction");
             long long den = 1;
             if (c.take('/')) {
                 int den_col = c.column();
-                if (!is_digit(c.peek())) fail_at(den_col, "expected the fraction's denominator after '/'");
+                if (!is_digit(c.peek()))
+                    fail_at(den_col, "expected the fraction's denominator after '/'");
                 den = c.number(max_recipe_exponent, "the fraction's denominator");
                 if (den == 0) fail_at(den_col, "the fraction's denominator is zero");
             }
@@ -260,9 +286,12 @@ std::optional<PrimeVector> read_tempering(const Token& t) {
         }
         int unit_col = c.column();
         PrimeVector unit;
-        if (c.take('P')) unit = pythagorean_comma();
-        else if (c.take('S')) unit = syntonic_comma();
-        else if (c.take('s')) unit = schisma();
+        if (c.take('P'))
+            unit = pythagorean_comma();
+        else if (c.take('S'))
+            unit = syntonic_comma();
+        else if (c.take('s'))
+            unit = schisma();
         else if (c.peek() == '(') {
             std::size_t open = c.index();
             int depth = 0;
@@ -275,13 +304,16 @@ std::optional<PrimeVector> read_tempering(const Token& t) {
             Token inner{t.text.substr(open + 1, close - open - 1), unit_col + 1};
             Interval v = IntervalReader(inner).read_all();
             if (!v.exact)
-                fail_at(unit_col + 1, "a fifth's tempering must be exact: write it with P, S, s or a "
-                                      "ratio, not in cents");
+                fail_at(unit_col + 1,
+                        "a fifth's tempering must be exact: write it with P, S, s or a "
+                        "ratio, not in cents");
             unit = *v.exact;
-            while (c.index() <= close) c.take(c.peek());
+            while (c.index() <= close)
+                c.take(c.peek());
         } else {
             fail_at(unit_col, "expected a comma after the fraction: P (Pythagorean), S (syntonic), "
-                              "s (schisma) or a ratio in parentheses; found " + in_quotes(c.rest()));
+                              "s (schisma) or a ratio in parentheses; found " +
+                                  in_quotes(c.rest()));
         }
         if (c.take('/')) {
             int den_col = c.column();
@@ -296,17 +328,17 @@ std::optional<PrimeVector> read_tempering(const Token& t) {
 }
 
 class RecipeReader {
-public:
-    explicit RecipeReader(std::string_view text) : text_(text), tokens_(tokenize(text)) {}
+  public:
+    explicit RecipeReader(std::string_view text) : tokens_(tokenize(text)) {}
 
     Scale read() {
-        if (tokens_.empty()) fail_at(1, std::string("empty recipe; start with one of ") + std::string(recipe_kinds));
+        if (tokens_.empty())
+            fail_at(1, std::string("empty recipe; start with one of ") + std::string(recipe_kinds));
         // Split into stages at '|': the construction first, then modifiers in order.
         std::vector<std::vector<Token>> stages(1);
         for (const Token& t : tokens_) {
             if (t.text == "|") {
-                if (stages.back().empty())
-                    fail_at(t.column, "expected a recipe before '|'");
+                if (stages.back().empty()) fail_at(t.column, "expected a recipe before '|'");
                 stages.emplace_back();
                 bar_columns_.push_back(t.column);
             } else {
@@ -314,25 +346,31 @@ public:
             }
         }
         if (stages.back().empty())
-            fail_at(bar_columns_.back() + 1, "expected a modifier after '|': mode, transpose, stretch or subset");
+            fail_at(bar_columns_.back() + 1,
+                    "expected a modifier after '|': mode, transpose, stretch or subset");
         Scale scale = construct(stages[0]);
-        for (std::size_t i = 1; i < stages.size(); ++i) scale = modify(scale, stages[i]);
-        if (scale.size() > max_scale_size)
-            fail_at(1, "the recipe makes " + std::to_string(scale.size()) + " degrees, more than " +
-                           std::to_string(max_scale_size) + ", the largest scale terzo accepts");
+        for (std::size_t i = 1; i < stages.size(); ++i)
+            scale = modify(scale, stages[i]);
+        // Every construction checks its own size and no modifier adds degrees.
+        TERZO_ASSERT(scale.size() <= max_scale_size);
         return scale;
     }
 
-private:
+  private:
     // ---- small readers of single words ----
 
     static long long whole(const Token& t, const std::string& what, long long low, long long high) {
         for (char ch : t.text)
-            if (!is_digit(ch)) fail_at(t.column, "expected " + what + " (a whole number), found " + in_quotes(t.text));
+            if (!is_digit(ch))
+                fail_at(t.column,
+                        "expected " + what + " (a whole number), found " + in_quotes(t.text));
         if (t.text.size() > 18 || std::stoll(std::string(t.text)) > high)
-            fail_at(t.column, what + " " + std::string(t.text) + " is larger than " + std::to_string(high));
+            fail_at(t.column,
+                    what + " " + std::string(t.text) + " is larger than " + std::to_string(high));
         long long v = std::stoll(std::string(t.text));
-        if (v < low) fail_at(t.column, what + " " + std::string(t.text) + " is smaller than " + std::to_string(low));
+        if (v < low)
+            fail_at(t.column,
+                    what + " " + std::string(t.text) + " is smaller than " + std::to_string(low));
         return v;
     }
 
@@ -348,33 +386,39 @@ private:
         bool negative = c.take('-');
         if (!negative) c.take('+');
         if (!is_digit(c.peek()))
-            fail_at(c.column(), "expected " + what + " such as 1/4 or 2/7, found " + in_quotes(t.text));
+            fail_at(c.column(),
+                    "expected " + what + " such as 1/4 or 2/7, found " + in_quotes(t.text));
         long long num = c.number(max_recipe_exponent, what);
         long long den = 1;
         if (c.take('/')) {
             int col = c.column();
-            if (!is_digit(c.peek())) fail_at(col, "expected a denominator after '/' in " + in_quotes(t.text));
+            if (!is_digit(c.peek()))
+                fail_at(col, "expected a denominator after '/' in " + in_quotes(t.text));
             den = c.number(max_recipe_exponent, "the denominator");
             if (den == 0) fail_at(col, "the denominator is zero in " + in_quotes(t.text));
         }
-        if (!c.done()) fail_at(c.column(), "unexpected " + in_quotes(c.rest()) + " in " + what + " " + in_quotes(t.text));
+        if (!c.done())
+            fail_at(c.column(),
+                    "unexpected " + in_quotes(c.rest()) + " in " + what + " " + in_quotes(t.text));
         return Ratio(negative ? -num : num, den);
     }
 
     // The token after position i, or an error naming what was expected there.
-    const Token& next(const std::vector<Token>& words, std::size_t i, const std::string& what) const {
+    const Token& next(const std::vector<Token>& words, std::size_t i,
+                      const std::string& what) const {
         if (i < words.size()) return words[i];
         fail_at(end_column(words), "expected " + what + " here");
     }
 
     int end_column(const std::vector<Token>& words) const {
         const Token& last = words.back();
-        return last.column + static_cast<int>(last.text.size()) + 1;
+        return last.column + static_cast<int>(last.text.size());
     }
 
     static void no_more(const std::vector<Token>& words, std::size_t i, const std::string& usage) {
         if (i < words.size())
-            fail_at(words[i].column, "unexpected " + in_quotes(words[i].text) + "; the form is: " + usage);
+            fail_at(words[i].column,
+                    "unexpected " + in_quotes(words[i].text) + "; the form is: " + usage);
     }
 
     // ---- constructions ----
@@ -390,10 +434,12 @@ private:
         if (kind == "products") return products(w);
         if (kind == "list") return list(w);
         if (kind == "mode" || kind == "transpose" || kind == "stretch" || kind == "subset")
-            fail_at(w[0].column, in_quotes(kind) + " changes a tuning and comes after one and '|', as in "
-                                                "\"equal 12 | " + std::string(kind) + " ...\"");
-        fail_at(w[0].column, "unknown recipe kind " + in_quotes(kind) + "; a recipe starts with one of " +
-                                 std::string(recipe_kinds));
+            fail_at(w[0].column, in_quotes(kind) +
+                                     " changes a tuning and comes after one and '|', as in "
+                                     "\"equal 12 | " +
+                                     std::string(kind) + " ...\"");
+        fail_at(w[0].column, "unknown recipe kind " + in_quotes(kind) +
+                                 "; a recipe starts with one of " + std::string(recipe_kinds));
     }
 
     Scale equal(const std::vector<Token>& w) {
@@ -403,14 +449,16 @@ private:
         Pitch interval = Pitch::from_ratio(Ratio(2));
         std::size_t i = 2;
         if (i < w.size() && w[i].text == "of") {
-            interval = interval_above_unison(next(w, i + 1, "the interval to divide, such as 3/1 or 1200c"),
-                                             "the interval to divide");
+            interval = interval_above_unison(
+                next(w, i + 1, "the interval to divide, such as 3/1 or 1200c"),
+                "the interval to divide");
             i += 2;
         }
         no_more(w, i, usage);
         std::string description = std::to_string(steps) + " equal divisions of " + interval.str();
-        if (!interval.is_exact()) description = std::to_string(steps) + " equal divisions of " +
-                                                fixed(interval.cents(), 3) + " cents";
+        if (!interval.is_exact())
+            description = std::to_string(steps) + " equal divisions of " +
+                          fixed(interval.cents(), 3) + " cents";
         return equal_division(static_cast<int>(steps), interval, description);
     }
 
@@ -432,7 +480,8 @@ private:
                 fail_at(w[i].column, in_quotes(word) + " is given twice");
             seen.push_back(word);
             if (word == "period") {
-                period = interval_above_unison(next(w, i + 1, "the period, such as 2/1"), "the period");
+                period =
+                    interval_above_unison(next(w, i + 1, "the period, such as 2/1"), "the period");
             } else {
                 long long& n = word == "up" ? up : down;
                 n = whole(next(w, i + 1, "the number of generators " + std::string(word)),
@@ -442,11 +491,12 @@ private:
             i += 2;
         }
         if (up + down + 1 > static_cast<long long>(max_scale_size))
-            fail_at(w[1].column, "the chain has " + std::to_string(up + down + 1) + " notes, more than " +
-                                     std::to_string(max_scale_size));
-        std::string description = "chain of " + generator.str() + ": " + std::to_string(up) + " up, " +
-                                  std::to_string(down) + " down, period " + period.str();
-        return generator_chain(generator, static_cast<int>(up), static_cast<int>(down), period, description);
+            fail_at(w[1].column, "the chain has " + std::to_string(up + down + 1) +
+                                     " notes, more than " + std::to_string(max_scale_size));
+        std::string description = "chain of " + generator.str() + ": " + std::to_string(up) +
+                                  " up, " + std::to_string(down) + " down, period " + period.str();
+        return generator_chain(generator, static_cast<int>(up), static_cast<int>(down), period,
+                               description);
     }
 
     Scale meantone(const std::vector<Token>& w) {
@@ -467,7 +517,8 @@ private:
             seen.push_back(word);
             if (word == "from") {
                 start_token = &next(w, i + 1, "the chain's first note, such as Eb");
-                start = parse_fifths_position(start_token->text, {"recipe", 1, start_token->column});
+                start =
+                    parse_fifths_position(start_token->text, {"recipe", 1, start_token->column});
             } else {
                 notes = whole(next(w, i + 1, "the number of notes"), "the number of notes", 1,
                               static_cast<long long>(max_scale_size));
@@ -477,13 +528,14 @@ private:
         long long last = start + notes - 1;
         if (start > 0 || last < 0) {
             int col = start_token ? start_token->column : w[0].column;
-            fail_at(col, "a chain of " + std::to_string(notes) + " fifths from " + fifths_position_name(start) +
+            fail_at(col, "a chain of " + std::to_string(notes) + " fifths from " +
+                             fifths_position_name(start) +
                              " does not contain C, which is 1/1; start on C or at most " +
                              std::to_string(notes - 1) + " fifths below it");
         }
-        std::string description = fraction_text(fraction) + "-comma meantone, " + std::to_string(notes) +
-                                  " notes from " + fifths_position_name(start) + " to " +
-                                  fifths_position_name(static_cast<int>(last));
+        std::string description =
+            fraction_text(fraction) + "-comma meantone, " + std::to_string(notes) + " notes from " +
+            fifths_position_name(start) + " to " + fifths_position_name(static_cast<int>(last));
         return generator_chain(Pitch::from_vector(meantone_fifth(fraction)), static_cast<int>(last),
                                -start, Pitch::from_ratio(Ratio(2)), description);
     }
@@ -501,7 +553,8 @@ private:
         }
         const Token& colon = next(w, i, "':' and then the twelve fifths");
         if (colon.text != ":")
-            fail_at(colon.column, "expected ':' before the twelve fifths; the form is: " + std::string(usage));
+            fail_at(colon.column,
+                    "expected ':' before the twelve fifths; the form is: " + std::string(usage));
         ++i;
         std::string list;
         int wolves = 0;
@@ -517,16 +570,20 @@ private:
         std::string description = "fifths from " + start_name + ":" + list;
         if (auto wolf = wolf_index(circle)) {
             int from = (circle.start_pitch_class + 7 * *wolf) % 12;
-            description += " (wolf " + pitch_class_name(from) + "-" + pitch_class_name((from + 7) % 12) + " " +
+            description += " (wolf " + pitch_class_name(from) + "-" +
+                           pitch_class_name((from + 7) % 12) + " " +
                            fixed(circle_fifth(circle, *wolf).cents(), 3) + " c)";
         } else {
             PrimeVector leftover = circle_leftover(circle);
             if (leftover != PrimeVector()) {
                 double c = leftover.cents();
+                PrimeVector excess = c > 0 ? leftover : PrimeVector() / leftover;
                 fail_at(colon.column + 2,
-                        "the 12 fifths do not close the circle: together they are " + leftover.str() + " (" +
-                            fixed(std::fabs(c), 3) + " c) " + (c > 0 ? "wider" : "narrower") +
-                            " than 7 octaves; change a fifth, or write wolf for the fifth that takes up "
+                        "the 12 fifths do not close the circle: together they are " + excess.str() +
+                            " (" + fixed(std::fabs(c), 3) + " c) " +
+                            (c > 0 ? "wider" : "narrower") +
+                            " than 7 octaves; change a fifth, or write wolf for the fifth that "
+                            "takes up "
                             "the difference");
             }
         }
@@ -541,23 +598,26 @@ private:
         long long lo = whole(lo_t, "the lowest harmonic number", 1, max_recipe_integer);
         long long hi = whole(hi_t, "the highest harmonic number", 1, max_recipe_integer);
         no_more(w, 3, usage);
-        if (hi <= lo) fail_at(hi_t.column, "the highest harmonic number must be larger than the lowest");
+        if (hi <= lo)
+            fail_at(hi_t.column, "the highest harmonic number must be larger than the lowest");
         if (hi - lo > static_cast<long long>(max_scale_size))
-            fail_at(hi_t.column, "harmonics " + std::to_string(lo) + " to " + std::to_string(hi) + " make " +
-                                     std::to_string(hi - lo) + " degrees, more than " +
+            fail_at(hi_t.column, "harmonics " + std::to_string(lo) + " to " + std::to_string(hi) +
+                                     " make " + std::to_string(hi - lo) + " degrees, more than " +
                                      std::to_string(max_scale_size));
-        std::string description = std::string(sub ? "subharmonics " : "harmonics ") + std::to_string(lo) +
-                                  " to " + std::to_string(hi);
-        return sub ? subharmonic_segment(lo, hi, description) : harmonic_segment(lo, hi, description);
+        std::string description = std::string(sub ? "subharmonics " : "harmonics ") +
+                                  std::to_string(lo) + " to " + std::to_string(hi);
+        return sub ? subharmonic_segment(lo, hi, description)
+                   : harmonic_segment(lo, hi, description);
     }
 
-    std::vector<std::int64_t> integer_set(const std::vector<Token>& w, std::size_t from, bool odd_only,
-                                          const std::string& what) {
+    std::vector<std::int64_t> integer_set(const std::vector<Token>& w, std::size_t from,
+                                          bool odd_only, const std::string& what) {
         std::vector<std::int64_t> set;
         for (std::size_t i = from; i < w.size(); ++i) {
             long long v = whole(w[i], what, 1, max_recipe_integer);
             if (odd_only && v % 2 == 0)
-                fail_at(w[i].column, "the tonality diamond is built from odd numbers; " + std::string(w[i].text) +
+                fail_at(w[i].column, "the tonality diamond is built from odd numbers; " +
+                                         std::string(w[i].text) +
                                          " is even (octaves are already included)");
             if (std::find(set.begin(), set.end(), v) != set.end() && odd_only)
                 fail_at(w[i].column, std::string(w[i].text) + " is listed twice");
@@ -572,15 +632,18 @@ private:
     Scale diamond(const std::vector<Token>& w) {
         auto odds = integer_set(w, 1, true, "an odd number");
         std::string description = "tonality diamond of";
-        for (auto o : odds) description += " " + std::to_string(o);
+        for (auto o : odds)
+            description += " " + std::to_string(o);
         return tonality_diamond(odds, description);
     }
 
     Scale products(const std::vector<Token>& w) {
         const Token& k_t = next(w, 1, "how many factors each product has");
-        long long k = whole(k_t, "the number of factors", 1, static_cast<long long>(max_recipe_set));
+        long long k =
+            whole(k_t, "the number of factors", 1, static_cast<long long>(max_recipe_set));
         const Token& of = next(w, 2, "\"of\" and the set of factors");
-        if (of.text != "of") fail_at(of.column, "expected \"of\"; the form is: products K of N1 N2 ...");
+        if (of.text != "of")
+            fail_at(of.column, "expected \"of\"; the form is: products K of N1 N2 ...");
         auto factors = integer_set(w, 3, false, "a factor");
         if (k > static_cast<long long>(factors.size()))
             fail_at(k_t.column, "cannot choose " + std::to_string(k) + " factors from " +
@@ -588,19 +651,24 @@ private:
         std::int64_t count = choose_count(static_cast<int>(factors.size()), static_cast<int>(k),
                                           static_cast<std::int64_t>(max_scale_size));
         if (count < 0)
-            fail_at(k_t.column, "choosing " + std::to_string(k) + " of " + std::to_string(factors.size()) +
-                                    " factors makes more than " + std::to_string(max_scale_size) + " products");
+            fail_at(k_t.column, "choosing " + std::to_string(k) + " of " +
+                                    std::to_string(factors.size()) + " factors makes more than " +
+                                    std::to_string(max_scale_size) + " products");
         std::string description = "products of " + std::to_string(k) + " from";
-        for (auto f : factors) description += " " + std::to_string(f);
+        for (auto f : factors)
+            description += " " + std::to_string(f);
         return product_set(static_cast<int>(k), factors, description);
     }
 
     Scale list(const std::vector<Token>& w) {
-        if (w.size() < 2) fail_at(end_column(w), "expected the degrees above 1/1 and last the period");
+        if (w.size() < 2)
+            fail_at(end_column(w), "expected the degrees above 1/1 and last the period");
         if (w.size() - 1 > max_scale_size)
-            fail_at(w[max_scale_size + 1].column, "more than " + std::to_string(max_scale_size) + " pitches");
+            fail_at(w[max_scale_size + 1].column,
+                    "more than " + std::to_string(max_scale_size) + " pitches");
         std::vector<Pitch> pitches;
-        for (std::size_t i = 1; i < w.size(); ++i) pitches.push_back(IntervalReader(w[i]).read_all().pitch());
+        for (std::size_t i = 1; i < w.size(); ++i)
+            pitches.push_back(IntervalReader(w[i]).read_all().pitch());
         Pitch period = pitches.back();
         pitches.pop_back();
         if (period.cents() <= 0)
@@ -615,13 +683,17 @@ private:
     Scale modify(const Scale& scale, const std::vector<Token>& w) {
         std::string_view kind = w[0].text;
         std::string description = scale.description() + " | ";
-        for (std::size_t i = 0; i < w.size(); ++i) description += (i ? " " : "") + std::string(w[i].text);
+        for (std::size_t i = 0; i < w.size(); ++i)
+            description += (i ? " " : "") + std::string(w[i].text);
         long long last = static_cast<long long>(scale.size()) - 1;
         if (kind == "mode") {
             const Token& t = next(w, 1, "the degree the mode starts on");
             no_more(w, 2, "mode DEGREE");
             long long k = whole(t, "the degree", 0, max_recipe_integer);
-            if (k > last) fail_at(t.column, "degree " + std::string(t.text) + " is out of range: the scale has degrees 0 to " + std::to_string(last));
+            if (k > last)
+                fail_at(t.column, "degree " + std::string(t.text) +
+                                      " is out of range: the scale has degrees 0 to " +
+                                      std::to_string(last));
             return rotate_to_degree(scale, static_cast<std::size_t>(k), description);
         }
         if (kind == "transpose") {
@@ -630,11 +702,16 @@ private:
             long long k = 0;
             if (is_digit(t.text[0])) {
                 k = whole(t, "the number of degrees", 0, max_recipe_integer);
-                if (k > last) fail_at(t.column, "transposing by " + std::string(t.text) + " degrees is out of range: the scale has degrees 0 to " + std::to_string(last));
+                if (k > last)
+                    fail_at(t.column, "transposing by " + std::string(t.text) +
+                                          " degrees is out of range: the scale has degrees 0 to " +
+                                          std::to_string(last));
             } else {
                 if (scale.size() != 12)
-                    fail_at(t.column, "transposing to a note name needs a 12-note scale, and this one has " +
-                                          std::to_string(scale.size()) + " degrees; give a number of degrees");
+                    fail_at(t.column,
+                            "transposing to a note name needs a 12-note scale, and this one has " +
+                                std::to_string(scale.size()) +
+                                " degrees; give a number of degrees");
                 k = parse_pitch_class(t.text, {"recipe", 1, t.column});
             }
             return transpose_pattern(scale, static_cast<std::size_t>(k), description);
@@ -645,24 +722,30 @@ private:
             return stretch_period(scale, interval_above_unison(t, "the new period"), description);
         }
         if (kind == "subset") {
-            if (w.size() < 2) fail_at(end_column(w), "expected the degrees to keep, such as 0 2 4 5 7 9 11");
+            if (w.size() < 2)
+                fail_at(end_column(w), "expected the degrees to keep, such as 0 2 4 5 7 9 11");
             std::vector<std::size_t> keep;
             long long previous = -1;
             for (std::size_t i = 1; i < w.size(); ++i) {
                 long long d = whole(w[i], "a degree", 0, max_recipe_integer);
-                if (d > last) fail_at(w[i].column, "degree " + std::string(w[i].text) + " is out of range: the scale has degrees 0 to " + std::to_string(last));
-                if (d <= previous) fail_at(w[i].column, "list the degrees in rising order, each once");
+                if (d > last)
+                    fail_at(w[i].column, "degree " + std::string(w[i].text) +
+                                             " is out of range: the scale has degrees 0 to " +
+                                             std::to_string(last));
+                if (d <= previous)
+                    fail_at(w[i].column, "list the degrees in rising order, each once");
                 keep.push_back(static_cast<std::size_t>(d));
                 previous = d;
             }
             return keep_degrees(scale, keep, description);
         }
         if (is_recipe_kind(kind))
-            fail_at(w[0].column, "only one tuning per recipe; after '|' comes a modifier: mode, transpose, stretch or subset");
-        fail_at(w[0].column, "unknown modifier " + in_quotes(kind) + "; after '|' comes mode, transpose, stretch or subset");
+            fail_at(w[0].column, "only one tuning per recipe; after '|' comes a modifier: mode, "
+                                 "transpose, stretch or subset");
+        fail_at(w[0].column, "unknown modifier " + in_quotes(kind) +
+                                 "; after '|' comes mode, transpose, stretch or subset");
     }
 
-    std::string_view text_;
     std::vector<Token> tokens_;
     std::vector<int> bar_columns_;
 };
@@ -671,9 +754,11 @@ private:
 
 bool starts_like_recipe(std::string_view text) {
     std::size_t start = 0;
-    while (start < text.size() && is_space(text[start])) ++start;
+    while (start < text.size() && is_space(text[start]))
+        ++start;
     std::size_t end = start;
-    while (end < text.size() && !is_space(text[end]) && text[end] != ':' && text[end] != '|') ++end;
+    while (end < text.size() && !is_space(text[end]) && text[end] != ':' && text[end] != '|')
+        ++end;
     return is_recipe_kind(text.substr(start, end - start));
 }
 

@@ -1,6 +1,7 @@
 #include "core/tuning/temperament.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <vector>
 
 #include "core/io/scl.hpp"
@@ -14,19 +15,28 @@ PrimeVector ratio_vector(std::int64_t num, std::int64_t den) {
     return PrimeVector::from_ratio(Ratio(num, den));
 }
 
-PrimeVector pure_fifth() { return ratio_vector(3, 2); }
+PrimeVector pure_fifth() {
+    return ratio_vector(3, 2);
+}
 
 } // namespace
 
-PrimeVector pythagorean_comma() { return ratio_vector(531441, 524288); }
-PrimeVector syntonic_comma() { return ratio_vector(81, 80); }
-PrimeVector schisma() { return ratio_vector(32805, 32768); }
+PrimeVector pythagorean_comma() {
+    return ratio_vector(531441, 524288);
+}
+PrimeVector syntonic_comma() {
+    return ratio_vector(81, 80);
+}
+PrimeVector schisma() {
+    return ratio_vector(32805, 32768);
+}
 
 Scale equal_division(int steps, const Pitch& interval, std::string description) {
     TERZO_ASSERT(steps >= 1 && static_cast<std::size_t>(steps) <= max_scale_size);
     TERZO_ASSERT(interval.cents() > 0);
     std::vector<Pitch> degrees;
-    for (int i = 1; i < steps; ++i) degrees.push_back(exact_power(interval, Ratio(i, steps)));
+    for (int i = 1; i < steps; ++i)
+        degrees.push_back(exact_power(interval, Ratio(i, steps)));
     return Scale(std::move(description), std::move(degrees), interval);
 }
 
@@ -35,7 +45,18 @@ Scale generator_chain(const Pitch& generator, int up, int down, const Pitch& per
     TERZO_ASSERT(up >= 0 && down >= 0 &&
                  static_cast<std::size_t>(up) + static_cast<std::size_t>(down) < max_scale_size);
     std::vector<Pitch> pitches;
-    for (int j = -down; j <= up; ++j) pitches.push_back(exact_power(generator, Ratio(j)));
+    auto g = exact_vector(generator), p = exact_vector(period);
+    for (int j = -down; j <= up; ++j) {
+        if (g && p) {
+            // In prime-vector form a power and a period reduction cost no big-number
+            // arithmetic; only the final conversion to a ratio does.
+            PrimeVector v = g->pow(Ratio(j));
+            auto k = static_cast<std::int64_t>(std::floor(v.cents() / p->cents()));
+            pitches.push_back(Pitch::from_vector(v / p->pow(Ratio(k))));
+        } else {
+            pitches.push_back(exact_power(generator, Ratio(j)));
+        }
+    }
     return scale_from_pitch_set(std::move(description), pitches, period);
 }
 

@@ -64,3 +64,12 @@ TEST_CASE("a keyboard rejects a reference or span outside its limits", "[keyboar
                         "--span: error: span 12 is outside the allowed range 1 to 11 periods");
     CHECK_NOTHROW(Keyboard(test::just12(), 440.0, max_span));
 }
+
+TEST_CASE("a keyboard rejects a tiny period and notes out of any audible or sane range", "[keyboard]") {
+    Scale tiny("tiny", {}, Pitch::from_cents(0.5));
+    REQUIRE_THROWS_WITH(Keyboard(tiny), "tuning: error: period of 0.500000 cents is smaller than the 1 cent a keyboard needs");
+    Scale huge("huge", {Pitch::from_cents(30000.0)}, Pitch::from_cents(36000.0)); // 440 * 2^25 Hz
+    REQUIRE_THROWS_WITH(Keyboard(huge, 440.0),
+                        "tuning: error: note 1@0 would sound at 14763950080.000000 Hz, outside the 0.000001 to "
+                        "1000000000 Hz a keyboard allows; check the tuning, --ref-hz and --span");
+}

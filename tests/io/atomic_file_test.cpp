@@ -88,3 +88,26 @@ TEST_CASE("a write that hits a file size limit leaves the old file intact", "[at
     CHECK(files_in(dir) == 1);
     fs::remove_all(dir);
 }
+
+TEST_CASE("a writer killed midway leaves the old file intact", "[atomic_file]") {
+    fs::path dir = test::temp_folder("atomic-kill");
+    fs::path target = dir / "keep.txt";
+    write_file_atomically(target, [](std::ostream& o) { o << "precious\n"; });
+    // The child writes 200 MB and is killed with SIGKILL while the bytes go to disk; whatever
+    // moment the signal lands in, the target must hold either the old or the whole new text.
+    pid_t child = ::fork();
+    REQUIRE(child >= 0);
+    if (child == 0) {
+        write_file_atomically(target, [](std::ostream& o) { o << std::string(200u << 20, 'x'); },
+                              Overwrite::allow);
+        ::_exit(0);
+    }
+    ::usleep(150 * 1000);
+    ::kill(child, SIGKILL);
+    int status = 0;
+    ::waitpid(child, &status, 0);
+    std::string now = test::slurp(target);
+    CHECK((now == "precious\n" || now.size() == (200u << 20)));
+    if (WIFSIGNALED(status)) CHECK(now == "precious\n");
+    fs::remove_all(dir);
+}

@@ -48,3 +48,24 @@ TEST_CASE("reference pitches are parsed and give equal-tempered frequencies", "[
         CHECK_THROWS_WITH(parse_spelling("greek", pos), Catch::Contains("use sharps, flats or mixed"));
     }
 }
+
+TEST_CASE("spelled notes have a place on the line of fifths", "[note_names]") {
+    // Each fifth up adds 1, each sharp 7: F C G D A E B = -1..5 (common practice, no source).
+    const SourcePos pos{"recipe", 1, 5};
+    CHECK(parse_fifths_position("C", pos) == 0);
+    CHECK(parse_fifths_position("F", pos) == -1);
+    CHECK(parse_fifths_position("B", pos) == 5);
+    CHECK(parse_fifths_position("Eb", pos) == -3);
+    CHECK(parse_fifths_position("G#", pos) == 8);
+    CHECK(parse_fifths_position("Gb", pos) == -6);
+    CHECK(parse_fifths_position("B#", pos) == 12);
+    CHECK(parse_fifths_position("Fbb", pos) == -15);
+    CHECK(fifths_position_name(0) == "C");
+    CHECK(fifths_position_name(-3) == "Eb");
+    CHECK(fifths_position_name(8) == "G#");
+    CHECK(fifths_position_name(12) == "B#");
+    CHECK(fifths_position_name(-15) == "Fbb");
+    for (int p = -30; p <= 30; ++p) CHECK(parse_fifths_position(fifths_position_name(p), pos) == p);
+    REQUIRE_THROWS_WITH(parse_fifths_position("Eb4", pos),
+                        "recipe:1:5: error: expected a note name without octave such as C, F# or Bb, found \"Eb4\"");
+}
