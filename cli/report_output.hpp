@@ -21,9 +21,11 @@ struct ReportOutput {
 };
 
 /// Adds --json, --csv, --md (mutually exclusive), --svg FILE, --force and --part.
-inline std::shared_ptr<ReportOutput> add_report_options(CLI::App* cmd, const std::string& parts_help) {
+inline std::shared_ptr<ReportOutput> add_report_options(CLI::App* cmd,
+                                                        const std::string& parts_help) {
     auto o = std::make_shared<ReportOutput>();
-    auto* json = cmd->add_flag("--json", o->json, "Print one JSON object (keys documented in the README)");
+    auto* json =
+        cmd->add_flag("--json", o->json, "Print one JSON object (keys documented in the README)");
     auto* csv = cmd->add_flag("--csv", o->csv, "Print one table as CSV (choose it with --part)");
     auto* md = cmd->add_flag("--md", o->md, "Print Markdown tables");
     json->excludes(csv)->excludes(md);
@@ -35,7 +37,8 @@ inline std::shared_ptr<ReportOutput> add_report_options(CLI::App* cmd, const std
 }
 
 /// Writes one titled table in the chosen text form.
-inline void write_part(std::ostream& out, const ReportOutput& o, const std::string& title, const Table& t) {
+inline void write_part(std::ostream& out, const ReportOutput& o, const std::string& title,
+                       const Table& t) {
     if (o.md) {
         out << "### " << title << "\n\n";
         write_markdown(out, t);
@@ -50,8 +53,9 @@ inline void write_part(std::ostream& out, const ReportOutput& o, const std::stri
 /// Writes the SVG file when one was asked for.
 inline void write_svg_file(const ReportOutput& o, const std::string& content) {
     if (o.svg.empty()) return;
-    write_file_atomically(o.svg, [&](std::ostream& out) { out << content; },
-                          o.force ? Overwrite::allow : Overwrite::refuse);
+    write_file_atomically(
+        o.svg, [&](std::ostream& out) { out << content; },
+        o.force ? Overwrite::allow : Overwrite::refuse);
 }
 
 } // namespace terzo::cli

@@ -33,10 +33,10 @@ const CheckedInterval& octave_interval();
 
 /// One interval's beating.
 struct Beat {
-    double hz = 0;        ///< beats per second, |q*f_high - p*f_low|, never negative
-    double cents = 0;     ///< size of the interval minus the pure ratio, in cents
+    double hz = 0;    ///< beats per second, |q*f_high - p*f_low|, never negative
+    double cents = 0; ///< size of the interval minus the pure ratio, in cents
     Tempering tempering = Tempering::pure;
-    bool exact = false;   ///< true when purity was decided exactly (both pitches exact)
+    bool exact = false; ///< true when purity was decided exactly (both pitches exact)
 };
 
 /// |q*f_high - p*f_low| for tones f_low, f_high in Hz (any order of size is allowed).

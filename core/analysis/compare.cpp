@@ -15,12 +15,6 @@ std::string key_name(const Key& k, Spelling spelling) {
     return pitch_class_name(k.root, spelling) + (k.minor ? " minor" : " major");
 }
 
-namespace {
-
-std::string quoted(std::string_view s) { return "\"" + std::string(s) + "\""; }
-
-} // namespace
-
 KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
     KeyWeights w;
     std::array<int, 24> seen_on{};
@@ -39,9 +33,11 @@ KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
                 ++i;
                 continue;
             }
-            if (rest[i] == '#') break; // a field that starts with '#' opens a comment ("F#" does not)
+            if (rest[i] == '#')
+                break; // a field that starts with '#' opens a comment ("F#" does not)
             std::size_t j = i;
-            while (j < rest.size() && rest[j] != ' ' && rest[j] != '\t') ++j;
+            while (j < rest.size() && rest[j] != ' ' && rest[j] != '\t')
+                ++j;
             fields.push_back({rest.substr(i, j - i), static_cast<int>(i) + 1});
             i = j;
         }
@@ -49,7 +45,8 @@ KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
         SourcePos pos{source, line_no, fields[0].second};
         if (fields.size() != 3)
             fail(pos, "expected \"<note> major|minor <weight>\" such as \"Bb major 2\", found " +
-                          std::to_string(fields.size()) + " field" + (fields.size() == 1 ? "" : "s"));
+                          std::to_string(fields.size()) + " field" +
+                          (fields.size() == 1 ? "" : "s"));
         Key key;
         key.root = parse_pitch_class(fields[0].first, pos);
         SourcePos mode_pos{source, line_no, fields[1].second};
@@ -63,7 +60,8 @@ KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
         auto [ptr, ec] = std::from_chars(text.data(), text.data() + text.size(), value);
         if (ec != std::errc() || ptr != text.data() + text.size() || !std::isfinite(value) ||
             text.front() == '-' || text.front() == '+')
-            fail(weight_pos, "expected a weight (a non-negative decimal number), found " + quoted(text));
+            fail(weight_pos,
+                 "expected a weight (a non-negative decimal number), found " + quoted(text));
         if (value > max_key_weight)
             fail(weight_pos, "weight " + std::string(text) + " is larger than the limit 1000000");
         if (seen_on[static_cast<std::size_t>(key.index())] != 0)
@@ -83,7 +81,8 @@ KeyWeights read_key_weights(const std::filesystem::path& path) {
     return parse_key_weights(in, path.string());
 }
 
-CompareSummary summarize(const std::vector<KeyReport>& keys, const std::optional<KeyWeights>& weights) {
+CompareSummary summarize(const std::vector<KeyReport>& keys,
+                         const std::optional<KeyWeights>& weights) {
     CompareSummary s;
     s.weighted = weights.has_value();
     double total = 0, fit_total = 0, fit_sum = 0;
@@ -115,9 +114,12 @@ CompareSummary summarize(const std::vector<KeyReport>& keys, const std::optional
     for (const KeyReport& k : keys) {
         auto consider = [&](const char* name, int from, const Beat& b, double threshold) {
             if (b.tempering == Tempering::pure) {
-                if (name[0] == 'f') ++s.pure_fifths;
-                else if (name[1] == 'a') ++s.pure_major_thirds;
-                else ++s.pure_minor_thirds;
+                if (name[0] == 'f')
+                    ++s.pure_fifths;
+                else if (name[1] == 'a')
+                    ++s.pure_major_thirds;
+                else
+                    ++s.pure_minor_thirds;
             }
             if (std::fabs(b.cents) > threshold) s.wolves.push_back({name, from, b.cents});
         };
@@ -128,13 +130,16 @@ CompareSummary summarize(const std::vector<KeyReport>& keys, const std::optional
             consider("minor third", k.key.root, k.minor_third, wolf_third_cents);
         }
     }
-    auto rank = [](const Wolf& w) { return w.interval == "fifth" ? 0 : w.interval == "major third" ? 1 : 2; };
+    auto rank = [](const Wolf& w) {
+        return w.interval == "fifth" ? 0 : w.interval == "major third" ? 1 : 2;
+    };
     std::stable_sort(s.wolves.begin(), s.wolves.end(),
                      [&](const Wolf& a, const Wolf& b) { return rank(a) < rank(b); });
     return s;
 }
 
-KeyComparison compare_keys(const Scale& scale, const CompareOptions& options, const std::string& name) {
+KeyComparison compare_keys(const Scale& scale, const CompareOptions& options,
+                           const std::string& name) {
     NoteMap map(scale, options.tonic, options.reference, name);
     if (options.octave < 0 || options.octave > 8)
         fail({"--octave", 0, 0}, "octave " + std::to_string(options.octave) + " is outside 0..8");
@@ -175,7 +180,8 @@ KeyComparison compare_keys(const Scale& scale, const CompareOptions& options, co
             return keyboard.note(m - 12 * period, period);
         };
         for (KeyReport& r : c.keys) {
-            std::vector<Note> triad = {keyboard_note(r.root), keyboard_note(r.third), keyboard_note(r.fifth)};
+            std::vector<Note> triad = {keyboard_note(r.root), keyboard_note(r.third),
+                                       keyboard_note(r.fifth)};
             r.fit = fit(chord_tones(keyboard, triad, tones)).rms_cents;
         }
     }
@@ -194,7 +200,8 @@ Ratio nearest_simple_ratio(double cents, int odd_limit) {
             double base = 1200.0 * std::log2(static_cast<double>(n) / d);
             // The octave shift k that brings n/d * 2^k nearest to the target.
             long k = std::lround((cents - base) / 1200.0);
-            if (std::fabs(static_cast<double>(k)) > 60) continue; // beyond 2^60 the ratio would not fit
+            if (std::fabs(static_cast<double>(k)) > 60)
+                continue; // beyond 2^60 the ratio would not fit
             for (long kk = k - 1; kk <= k + 1; ++kk) {
                 double dev = std::fabs(cents - base - 1200.0 * static_cast<double>(kk));
                 if (dev < best_dev) {
@@ -208,13 +215,16 @@ Ratio nearest_simple_ratio(double cents, int odd_limit) {
     return best;
 }
 
-std::vector<IntervalClass> interval_classes(const Scale& scale, int odd_limit, const std::string& name) {
+std::vector<IntervalClass> interval_classes(const Scale& scale, int odd_limit,
+                                            const std::string& name) {
     if (odd_limit < 1 || odd_limit > max_odd_limit || odd_limit % 2 == 0)
-        fail({"--odd-limit", 0, 0}, "odd limit " + std::to_string(odd_limit) + " must be an odd number from 1 to 99");
+        fail({"--odd-limit", 0, 0},
+             "odd limit " + std::to_string(odd_limit) + " must be an odd number from 1 to 99");
     std::size_t n = scale.size();
     if (n > max_class_degrees)
-        fail({name, 0, 0}, "interval classes are made for tunings of at most 256 degrees; this one has " +
-                               std::to_string(n));
+        fail({name, 0, 0},
+             "interval classes are made for tunings of at most 256 degrees; this one has " +
+                 std::to_string(n));
     std::vector<IntervalClass> classes;
     for (std::size_t k = 1; k < n; ++k) {
         std::vector<Pitch> sizes;

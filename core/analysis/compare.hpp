@@ -77,9 +77,10 @@ struct CompareSummary {
     double mean_fifth = 0, worst_fifth = 0;             ///< |cents from 3/2|
     double mean_major_third = 0, worst_major_third = 0; ///< |cents from 5/4|
     double mean_minor_third = 0, worst_minor_third = 0; ///< |cents from 6/5|
-    int pure_fifths = 0, pure_major_thirds = 0, pure_minor_thirds = 0; ///< of the 12 each, exactly pure
-    std::vector<Wolf> wolves;                           ///< of the 12 fifths, 12 major and 12 minor thirds, in that order
-    std::optional<double> mean_fit;                     ///< weighted, when fits are computed
+    int pure_fifths = 0, pure_major_thirds = 0,
+        pure_minor_thirds = 0; ///< of the 12 each, exactly pure
+    std::vector<Wolf> wolves;  ///< of the 12 fifths, 12 major and 12 minor thirds, in that order
+    std::optional<double> mean_fit; ///< weighted, when fits are computed
     bool weighted = false;
 };
 
@@ -94,25 +95,27 @@ struct CompareOptions {
 
 /// One 12-note tuning, key by key.
 struct KeyComparison {
-    std::string name;                 ///< the TUNING argument
+    std::string name; ///< the TUNING argument
     std::string description;
-    std::vector<KeyReport> keys;      ///< 24, in Key::index() order
-    std::vector<CircleFifth> circle;  ///< the twelve fifths from the tonic
+    std::vector<KeyReport> keys;     ///< 24, in Key::index() order
+    std::vector<CircleFifth> circle; ///< the twelve fifths from the tonic
     CompareSummary summary;
 };
 
 /// Compares one 12-note tuning key by key; throws InputError at `name` when it is not 12 notes,
 /// at "--octave" for an octave outside 0..8, at "--order" for a fit order outside 2..12.
-KeyComparison compare_keys(const Scale& scale, const CompareOptions& options, const std::string& name);
+KeyComparison compare_keys(const Scale& scale, const CompareOptions& options,
+                           const std::string& name);
 
 /// Recomputes the summary from the keys' values (also after fits are filled in).
-CompareSummary summarize(const std::vector<KeyReport>& keys, const std::optional<KeyWeights>& weights);
+CompareSummary summarize(const std::vector<KeyReport>& keys,
+                         const std::optional<KeyWeights>& weights);
 
 /// One size taken by a step span, and its nearest simple ratio.
 struct IntervalSize {
-    Pitch size;         ///< one representative
-    int count = 0;      ///< how many degrees start an interval of this size
-    Ratio nearest;      ///< nearest ratio whose odd parts are within the odd limit
+    Pitch size;           ///< one representative
+    int count = 0;        ///< how many degrees start an interval of this size
+    Ratio nearest;        ///< nearest ratio whose odd parts are within the odd limit
     double deviation = 0; ///< size minus nearest, in cents
 };
 /// All intervals spanning `steps` degrees (degree i to degree i + steps, across the period).
@@ -128,7 +131,8 @@ constexpr int max_odd_limit = 99;
 /// Interval classes of a scale, steps 1..size-1. Sizes are grouped exactly when exact;
 /// cents-only sizes within 1e-6 c of each other are one size. Throws InputError at `name`
 /// for more than max_class_degrees degrees, at "--odd-limit" for a limit outside 1..99 or even.
-std::vector<IntervalClass> interval_classes(const Scale& scale, int odd_limit, const std::string& name);
+std::vector<IntervalClass> interval_classes(const Scale& scale, int odd_limit,
+                                            const std::string& name);
 
 /// The ratio nearest to `cents` among n/d * 2^k with n, d odd, coprime and at most odd_limit.
 Ratio nearest_simple_ratio(double cents, int odd_limit);

@@ -6,12 +6,16 @@ namespace terzo {
 
 namespace {
 
-int floor_div(int a, int b) { return a / b - ((a % b != 0) && ((a < 0) != (b < 0))); }
+int floor_div(int a, int b) {
+    return a / b - ((a % b != 0) && ((a < 0) != (b < 0)));
+}
 
 Pitch power(const Pitch& p, int k) {
     Pitch r;
-    for (int i = 0; i < k; ++i) r = r * p;
-    for (int i = 0; i > k; --i) r = r / p;
+    for (int i = 0; i < k; ++i)
+        r = r * p;
+    for (int i = 0; i > k; --i)
+        r = r / p;
     return r;
 }
 
@@ -85,9 +89,12 @@ namespace {
 // The step that tunes key `to` from key `from` (already set).
 TuningStep step(const NoteMap& map, TuningStep::Kind kind, int from, int to) {
     static const CheckedInterval* by_kind[] = {nullptr,
-                                               &checked_intervals()[0], &checked_intervals()[0],
-                                               &checked_intervals()[1], &checked_intervals()[1],
-                                               &octave_interval(),      &octave_interval()};
+                                               &checked_intervals()[0],
+                                               &checked_intervals()[0],
+                                               &checked_intervals()[1],
+                                               &checked_intervals()[1],
+                                               &octave_interval(),
+                                               &octave_interval()};
     TuningStep s;
     s.kind = kind;
     s.from = note_of_key(from);
@@ -112,7 +119,9 @@ std::vector<TuningStep> tuning_order(const NoteMap& map, int lo, int hi, int sta
         order.push_back(first);
         for (int k = ref_key; k != start;) {
             int next = k < start ? k + 12 : k - 12;
-            order.push_back(step(map, k < start ? TuningStep::Kind::octave_up : TuningStep::Kind::octave_down, k, next));
+            order.push_back(
+                step(map, k < start ? TuningStep::Kind::octave_up : TuningStep::Kind::octave_down,
+                     k, next));
             k = next;
         }
     } else {
@@ -156,15 +165,16 @@ Sheet make_sheet(const Scale& scale, const SheetOptions& options, const std::str
         fail(range_pos, "the range " + note_text(options.low) + ".." + note_text(options.high) +
                             " leaves the MIDI keyboard C-1..G9");
     if (hi - lo < 12)
-        fail(range_pos, "the range " + note_text(options.low) + ".." + note_text(options.high) +
-                            " must span at least an octave (12 semitones) so that every note is set");
+        fail(range_pos,
+             "the range " + note_text(options.low) + ".." + note_text(options.high) +
+                 " must span at least an octave (12 semitones) so that every note is set");
     int start;
     if (options.start) {
         start = midi_key(*options.start);
         if (start < lo || start > lo + 11)
-            fail({"--start", 0, 0}, "start note " + note_text(*options.start) +
-                                        " is outside the temperament octave " + note_text(options.low) +
-                                        ".." + note_text(note_of_key(lo + 11)));
+            fail({"--start", 0, 0},
+                 "start note " + note_text(*options.start) + " is outside the temperament octave " +
+                     note_text(options.low) + ".." + note_text(note_of_key(lo + 11)));
     } else {
         int pc = options.reference.note.pitch_class;
         start = lo + ((pc - lo) % 12 + 12) % 12;
@@ -175,7 +185,8 @@ Sheet make_sheet(const Scale& scale, const SheetOptions& options, const std::str
     sheet.options = options;
     for (int k = lo; k <= hi; ++k) {
         NoteName n = note_of_key(k);
-        sheet.notes.push_back({n, map.degree_of(n), map.position(n), map.hz(n), map.offset_from_equal(n)});
+        sheet.notes.push_back(
+            {n, map.degree_of(n), map.position(n), map.hz(n), map.offset_from_equal(n)});
     }
     for (const CheckedInterval& kind : checked_intervals()) {
         for (int k = lo; k + kind.semitones <= hi; ++k) {

@@ -18,7 +18,7 @@ namespace terzo {
 /// octave 4 is the tonic in octave 4 (C4 when the tonic is C), periods stack above and below,
 /// and the reference note sounds at the reference frequency.
 class NoteMap {
-public:
+  public:
     /// Throws InputError at {source} unless the scale has exactly 12 degrees.
     NoteMap(const Scale& scale, int tonic, PitchReference ref, const std::string& source);
 
@@ -35,7 +35,7 @@ public:
     /// Cents above (+) or below (-) 12-tone equal temperament at the same reference.
     double offset_from_equal(const NoteName& n) const;
 
-private:
+  private:
     std::vector<Pitch> degrees_;
     Pitch period_;
     int tonic_;
@@ -54,11 +54,12 @@ std::vector<CircleFifth> fifth_circle(const NoteMap& map);
 /// What a sheet covers. The range must span at least an octave; its lowest 12 notes are the
 /// temperament octave that the tuning order sets by fifths and fourths.
 struct SheetOptions {
-    PitchReference reference;               ///< A4 = 440 Hz unless given
-    int tonic = 0;                          ///< pitch class of degree 0 (C)
-    NoteName low{5, 3}, high{5, 4};         ///< F3..F4
-    std::optional<NoteName> start;          ///< first note of the order; default: the reference's pitch class in the temperament octave
-    bool rising = true;                     ///< up a fifth, down a fourth (else down a fifth, up a fourth)
+    PitchReference reference;       ///< A4 = 440 Hz unless given
+    int tonic = 0;                  ///< pitch class of degree 0 (C)
+    NoteName low{5, 3}, high{5, 4}; ///< F3..F4
+    std::optional<NoteName> start;  ///< first note of the order; default: the reference's pitch
+                                    ///< class in the temperament octave
+    bool rising = true;             ///< up a fifth, down a fourth (else down a fifth, up a fourth)
     Spelling spelling = Spelling::mixed;
 };
 
@@ -66,9 +67,9 @@ struct SheetOptions {
 struct SheetNote {
     NoteName note;
     int degree = 0;
-    Pitch position;      ///< interval above the tonic in octave 4
+    Pitch position; ///< interval above the tonic in octave 4
     double hz = 0;
-    double offset = 0;   ///< cents from 12-TET at the same reference
+    double offset = 0; ///< cents from 12-TET at the same reference
 };
 
 /// One checked interval between two notes of the range.
@@ -76,19 +77,27 @@ struct SheetInterval {
     const CheckedInterval* kind = nullptr;
     NoteName low, high;
     double low_hz = 0, high_hz = 0;
-    Pitch size;          ///< the interval itself
+    Pitch size; ///< the interval itself
     Beat beat;
 };
 
 /// One step of the tuning order: tune `to` against `from` (already tuned) by the interval,
 /// aiming at the beat rate; the first step sets a note from the reference.
 struct TuningStep {
-    enum class Kind { reference, fifth_up, fifth_down, fourth_up, fourth_down, octave_up, octave_down };
+    enum class Kind {
+        reference,
+        fifth_up,
+        fifth_down,
+        fourth_up,
+        fourth_down,
+        octave_up,
+        octave_down
+    };
     Kind kind = Kind::reference;
     std::optional<NoteName> from; ///< empty for the reference step
     NoteName to;
     double to_hz = 0;
-    Beat beat;                    ///< of the interval between from and to (none for the reference)
+    Beat beat; ///< of the interval between from and to (none for the reference)
 };
 /// "reference", "fifth up", "fourth down" …
 std::string step_name(TuningStep::Kind k);
@@ -96,8 +105,9 @@ std::string step_name(TuningStep::Kind k);
 struct Sheet {
     std::string description;
     SheetOptions options;
-    std::vector<SheetNote> notes;          ///< low..high
-    std::vector<SheetInterval> intervals;  ///< grouped by kind in checked_intervals() order, then by low note
+    std::vector<SheetNote> notes; ///< low..high
+    std::vector<SheetInterval>
+        intervals; ///< grouped by kind in checked_intervals() order, then by low note
     std::vector<TuningStep> order;
     std::vector<CircleFifth> circle;
 };

@@ -15,7 +15,8 @@ using A = Table::Align;
 using J = nlohmann::ordered_json;
 
 bool has_fit(const KeyComparison& c) {
-    return std::any_of(c.keys.begin(), c.keys.end(), [](const KeyReport& k) { return k.fit.has_value(); });
+    return std::any_of(c.keys.begin(), c.keys.end(),
+                       [](const KeyReport& k) { return k.fit.has_value(); });
 }
 
 std::string notes_of(const KeyReport& k, Spelling s) {
@@ -46,10 +47,14 @@ Table key_table(const KeyComparison& c, Spelling spelling) {
         t.align.push_back(A::right);
     }
     for (const KeyReport& k : c.keys) {
-        std::vector<std::string> row = {key_name(k.key, spelling), notes_of(k, spelling),
-                                        signed_fixed(k.fifth_beat.cents, 3), fixed(k.fifth_beat.hz, 2),
-                                        signed_fixed(k.major_third.cents, 3), fixed(k.major_third.hz, 2),
-                                        signed_fixed(k.minor_third.cents, 3), fixed(k.minor_third.hz, 2)};
+        std::vector<std::string> row = {key_name(k.key, spelling),
+                                        notes_of(k, spelling),
+                                        signed_fixed(k.fifth_beat.cents, 3),
+                                        fixed(k.fifth_beat.hz, 2),
+                                        signed_fixed(k.major_third.cents, 3),
+                                        fixed(k.major_third.hz, 2),
+                                        signed_fixed(k.minor_third.cents, 3),
+                                        fixed(k.minor_third.hz, 2)};
         if (fits) row.push_back(k.fit ? fixed(*k.fit, 3) : "");
         t.add(std::move(row));
     }
@@ -58,15 +63,27 @@ Table key_table(const KeyComparison& c, Spelling spelling) {
 
 Table keys_long_table(const std::vector<ComparedTuning>& tunings, Spelling spelling) {
     Table t;
-    t.header = {"tuning", "key", "root", "third", "fifth",
-                "fifth_cents", "fifth_beats", "fifth_tempering",
-                "major_third_cents", "major_third_beats", "major_third_tempering",
-                "minor_third_cents", "minor_third_beats", "minor_third_tempering", "fit_cents"};
+    t.header = {"tuning",
+                "key",
+                "root",
+                "third",
+                "fifth",
+                "fifth_cents",
+                "fifth_beats",
+                "fifth_tempering",
+                "major_third_cents",
+                "major_third_beats",
+                "major_third_tempering",
+                "minor_third_cents",
+                "minor_third_beats",
+                "minor_third_tempering",
+                "fit_cents"};
     for (const ComparedTuning& tu : tunings) {
         if (!tu.keys) continue;
         for (const KeyReport& k : tu.keys->keys)
-            t.add({tu.name, key_name(k.key, spelling), note_text(k.root, spelling), note_text(k.third, spelling),
-                   note_text(k.fifth, spelling), fixed(k.fifth_beat.cents, 6), fixed(k.fifth_beat.hz, 6),
+            t.add({tu.name, key_name(k.key, spelling), note_text(k.root, spelling),
+                   note_text(k.third, spelling), note_text(k.fifth, spelling),
+                   fixed(k.fifth_beat.cents, 6), fixed(k.fifth_beat.hz, 6),
                    tempering_name(k.fifth_beat.tempering), fixed(k.major_third.cents, 6),
                    fixed(k.major_third.hz, 6), tempering_name(k.major_third.tempering),
                    fixed(k.minor_third.cents, 6), fixed(k.minor_third.hz, 6),
@@ -77,17 +94,18 @@ Table keys_long_table(const std::vector<ComparedTuning>& tunings, Spelling spell
 
 Table summary_table(const std::vector<ComparedTuning>& tunings) {
     Table t;
-    t.header = {"tuning", "5th mean", "5th worst", "M3 mean", "M3 worst", "m3 mean", "m3 worst",
-                "pure 5ths", "pure M3", "wolves", "mean fit"};
+    t.header = {"tuning",   "5th mean",  "5th worst", "M3 mean", "M3 worst", "m3 mean",
+                "m3 worst", "pure 5ths", "pure M3",   "wolves",  "mean fit"};
     t.align = {A::left};
     t.align.resize(t.header.size(), A::right);
     for (const ComparedTuning& tu : tunings) {
         if (!tu.keys) continue;
         const CompareSummary& s = tu.keys->summary;
-        t.add({tu.name, fixed(s.mean_fifth, 3), fixed(s.worst_fifth, 3), fixed(s.mean_major_third, 3),
-               fixed(s.worst_major_third, 3), fixed(s.mean_minor_third, 3), fixed(s.worst_minor_third, 3),
-               std::to_string(s.pure_fifths), std::to_string(s.pure_major_thirds), std::to_string(s.wolves.size()),
-               s.mean_fit ? fixed(*s.mean_fit, 3) : ""});
+        t.add({tu.name, fixed(s.mean_fifth, 3), fixed(s.worst_fifth, 3),
+               fixed(s.mean_major_third, 3), fixed(s.worst_major_third, 3),
+               fixed(s.mean_minor_third, 3), fixed(s.worst_minor_third, 3),
+               std::to_string(s.pure_fifths), std::to_string(s.pure_major_thirds),
+               std::to_string(s.wolves.size()), s.mean_fit ? fixed(*s.mean_fit, 3) : ""});
     }
     return t;
 }
@@ -117,13 +135,14 @@ Table classes_table(const std::vector<ComparedTuning>& tunings) {
     return t;
 }
 
-J compare_json(const std::vector<ComparedTuning>& tunings, const CompareOptions& options, int odd_limit,
-               Spelling spelling) {
+J compare_json(const std::vector<ComparedTuning>& tunings, const CompareOptions& options,
+               int odd_limit, Spelling spelling) {
     J weights = nullptr;
     if (options.weights) {
         weights = J::object();
         for (int i = 0; i < 24; ++i)
-            weights[key_name(Key{i % 12, i >= 12}, spelling)] = options.weights->weight[static_cast<std::size_t>(i)];
+            weights[key_name(Key{i % 12, i >= 12}, spelling)] =
+                options.weights->weight[static_cast<std::size_t>(i)];
     }
     J list = J::array();
     for (const ComparedTuning& tu : tunings) {
@@ -132,8 +151,9 @@ J compare_json(const std::vector<ComparedTuning>& tunings, const CompareOptions&
             J keys = J::array();
             for (const KeyReport& k : tu.keys->keys)
                 keys.push_back({{"key", key_name(k.key, spelling)},
-                                {"notes", {note_text(k.root, spelling), note_text(k.third, spelling),
-                                           note_text(k.fifth, spelling)}},
+                                {"notes",
+                                 {note_text(k.root, spelling), note_text(k.third, spelling),
+                                  note_text(k.fifth, spelling)}},
                                 {"fifth", beat_json(k.fifth_beat)},
                                 {"major_third", beat_json(k.major_third)},
                                 {"minor_third", beat_json(k.minor_third)},
@@ -141,10 +161,13 @@ J compare_json(const std::vector<ComparedTuning>& tunings, const CompareOptions&
             const CompareSummary& s = tu.keys->summary;
             J wolves = J::array();
             for (const Wolf& w : s.wolves)
-                wolves.push_back({{"interval", w.interval}, {"notes", wolf_label(w, spelling)}, {"deviation_cents", w.cents}});
+                wolves.push_back({{"interval", w.interval},
+                                  {"notes", wolf_label(w, spelling)},
+                                  {"deviation_cents", w.cents}});
             J circle = J::array();
             for (const CircleFifth& f : tu.keys->circle) {
-                J c = {{"from", pitch_class_name(f.from, spelling)}, {"to", pitch_class_name((f.from + 7) % 12, spelling)}};
+                J c = {{"from", pitch_class_name(f.from, spelling)},
+                       {"to", pitch_class_name((f.from + 7) % 12, spelling)}};
                 c.update(beat_json(f.beat));
                 circle.push_back(std::move(c));
             }
@@ -182,14 +205,16 @@ J compare_json(const std::vector<ComparedTuning>& tunings, const CompareOptions&
         j["interval_classes"] = std::move(classes);
         list.push_back(std::move(j));
     }
-    return J{{"reference", {{"note", note_text(options.reference.note, spelling)}, {"hz", options.reference.hz}}},
-             {"tonic", pitch_class_name(options.tonic, spelling)},
-             {"octave", options.octave},
-             {"odd_limit", odd_limit},
-             {"fit_order", options.fit ? J(options.fit_order) : J(nullptr)},
-             {"weights", std::move(weights)},
-             {"wolf_thresholds", {{"fifth_cents", wolf_fifth_cents}, {"third_cents", wolf_third_cents}}},
-             {"tunings", std::move(list)}};
+    return J{
+        {"reference",
+         {{"note", note_text(options.reference.note, spelling)}, {"hz", options.reference.hz}}},
+        {"tonic", pitch_class_name(options.tonic, spelling)},
+        {"octave", options.octave},
+        {"odd_limit", odd_limit},
+        {"fit_order", options.fit ? J(options.fit_order) : J(nullptr)},
+        {"weights", std::move(weights)},
+        {"wolf_thresholds", {{"fifth_cents", wolf_fifth_cents}, {"third_cents", wolf_third_cents}}},
+        {"tunings", std::move(list)}};
 }
 
 namespace {
@@ -197,13 +222,13 @@ namespace {
 // Colours for up to twelve tunings, chosen to stay apart in print and for common colour
 // vision deficiencies as far as twelve can.
 const char* const palette[max_compared_tunings] = {"#1b6ca8", "#d1495b", "#e8a33d", "#00798c",
-                                                    "#5b8e3e", "#8d6a9f", "#2e4057", "#a05c34",
-                                                    "#e377c2", "#7f7f7f", "#17becf", "#bcbd22"};
+                                                   "#5b8e3e", "#8d6a9f", "#2e4057", "#a05c34",
+                                                   "#e377c2", "#7f7f7f", "#17becf", "#bcbd22"};
 
 // Per-key bars: for each of the 12 keys in circle-of-fifths order, one bar per tuning of
 // the given third's cents from pure. Returns the y below the plot.
-double bar_plot(Svg& svg, const std::vector<const ComparedTuning*>& ts, bool minor, double x, double y,
-                double w, double h, Spelling sp) {
+double bar_plot(Svg& svg, const std::vector<const ComparedTuning*>& ts, bool minor, double x,
+                double y, double w, double h, Spelling sp) {
     auto value = [&](const ComparedTuning* t, int root) {
         const KeyReport& k = t->keys->keys[static_cast<std::size_t>(root + (minor ? 12 : 0))];
         return minor ? k.minor_third.cents : k.major_third.cents;
@@ -225,7 +250,8 @@ double bar_plot(Svg& svg, const std::vector<const ComparedTuning*>& ts, bool min
              {14, SvgFont::Anchor::start, true, "#000"});
     for (double g = lo; g <= hi + 1e-9; g += 10) {
         svg.line(px, ypos(g), px + pw, ypos(g), {"", g == 0 ? "#000" : "#ddd", g == 0 ? 1.2 : 0.6});
-        svg.text(px - 6, ypos(g) + 4, signed_fixed(g, 0), {11, SvgFont::Anchor::end, false, "#444"});
+        svg.text(px - 6, ypos(g) + 4, signed_fixed(g, 0),
+                 {11, SvgFont::Anchor::end, false, "#444"});
     }
     double group = pw / 12, bar = group * 0.8 / static_cast<double>(ts.size());
     for (int i = 0; i < 12; ++i) {
@@ -234,14 +260,16 @@ double bar_plot(Svg& svg, const std::vector<const ComparedTuning*>& ts, bool min
         for (std::size_t t = 0; t < ts.size(); ++t) {
             double v = value(ts[t], root);
             double y0 = ypos(std::max(v, 0.0)), y1 = ypos(std::min(v, 0.0));
-            svg.begin_group(ts[t]->name + ", " + key_name(Key{root, minor}, sp) + ": " + signed_fixed(v, 3) + " c");
+            svg.begin_group(ts[t]->name + ", " + key_name(Key{root, minor}, sp) + ": " +
+                            signed_fixed(v, 3) + " c");
             svg.rect(gx + bar * static_cast<double>(t), y0, bar * 0.92, std::max(y1 - y0, 0.5),
                      {palette[t], "", 0});
             svg.end_group();
         }
         std::string label = pitch_class_name(root, sp);
         if (minor) label[0] = static_cast<char>(label[0] - 'A' + 'a'); // minor keys in lower case
-        svg.text(px + group * (i + 0.5), py + ph + 16, label, {12, SvgFont::Anchor::middle, true, "#000"});
+        svg.text(px + group * (i + 0.5), py + ph + 16, label,
+                 {12, SvgFont::Anchor::middle, true, "#000"});
     }
     return y + h;
 }
@@ -258,15 +286,19 @@ std::string compare_svg(const std::vector<ComparedTuning>& tunings, Spelling spe
     const std::size_t per_row = 4;
     std::size_t circle_rows = (ts.size() + per_row - 1) / per_row;
     double legend_h = 22.0 * static_cast<double>((ts.size() + 1) / 2) + 10;
-    double height = margin + 30 + legend_h + 2 * plot_h + 30 + static_cast<double>(circle_rows) * 230 + 30;
+    double height =
+        margin + 30 + legend_h + 2 * plot_h + 30 + static_cast<double>(circle_rows) * 230 + 30;
     Svg svg(width, height, "", "Comparison of tunings");
     double y = margin + 18;
-    svg.text(margin, y, "Comparison of tunings, key by key", {20, SvgFont::Anchor::start, true, "#000"});
+    svg.text(margin, y, "Comparison of tunings, key by key",
+             {20, SvgFont::Anchor::start, true, "#000"});
     y += 16;
     for (std::size_t t = 0; t < ts.size(); ++t) {
-        double lx = margin + static_cast<double>(t % 2) * (width / 2), ly = y + 22.0 * static_cast<double>(t / 2);
+        double lx = margin + static_cast<double>(t % 2) * (width / 2),
+               ly = y + 22.0 * static_cast<double>(t / 2);
         svg.rect(lx, ly, 14, 14, {palette[t], "", 0});
-        std::string label = ts[t]->name + (ts[t]->description.empty() ? "" : ": " + ts[t]->description);
+        std::string label =
+            ts[t]->name + (ts[t]->description.empty() ? "" : ": " + ts[t]->description);
         if (label.size() > 60) label = label.substr(0, 57) + "...";
         svg.text(lx + 20, ly + 12, label, {12, SvgFont::Anchor::start, false, "#000"});
     }
@@ -280,7 +312,8 @@ std::string compare_svg(const std::vector<ComparedTuning>& tunings, Spelling spe
     for (std::size_t t = 0; t < ts.size(); ++t) {
         double cx = margin + cell * (static_cast<double>(t % per_row) + 0.5);
         double cy = y + 230.0 * static_cast<double>(t / per_row) + 105;
-        std::string name = ts[t]->name.size() > 28 ? ts[t]->name.substr(0, 25) + "..." : ts[t]->name;
+        std::string name =
+            ts[t]->name.size() > 28 ? ts[t]->name.substr(0, 25) + "..." : ts[t]->name;
         svg.text(cx, cy - 95, name, {12, SvgFont::Anchor::middle, true, palette[t]});
         draw_fifth_circle(svg, ts[t]->keys->circle, cx, cy, 68, spelling, 12);
     }

@@ -16,10 +16,10 @@ namespace terzo {
 
 /// Everything `terzo compare` reports about one tuning.
 struct ComparedTuning {
-    std::string name;                    ///< the TUNING argument
+    std::string name; ///< the TUNING argument
     std::string description;
-    std::size_t size = 0;                ///< degrees
-    std::optional<KeyComparison> keys;   ///< only for 12-note tunings
+    std::size_t size = 0;              ///< degrees
+    std::optional<KeyComparison> keys; ///< only for 12-note tunings
     std::vector<IntervalClass> classes;
 };
 
@@ -41,8 +41,9 @@ Table wolves_table(const std::vector<ComparedTuning>& tunings, Spelling spelling
 Table classes_table(const std::vector<ComparedTuning>& tunings);
 
 /// The whole comparison as JSON (keys documented in the README).
-nlohmann::ordered_json compare_json(const std::vector<ComparedTuning>& tunings, const CompareOptions& options,
-                                    int odd_limit, Spelling spelling);
+nlohmann::ordered_json compare_json(const std::vector<ComparedTuning>& tunings,
+                                    const CompareOptions& options, int odd_limit,
+                                    Spelling spelling);
 
 /// The plots; throws InputError at "--svg" when no tuning has 12 notes.
 std::string compare_svg(const std::vector<ComparedTuning>& tunings, Spelling spelling);

@@ -21,7 +21,9 @@ namespace {
 
 using A = Table::Align;
 
-std::string name(const NoteName& n, const Sheet& s) { return note_text(n, s.options.spelling); }
+std::string name(const NoteName& n, const Sheet& s) {
+    return note_text(n, s.options.spelling);
+}
 
 const SheetInterval* rising_from(const Sheet& s, const NoteName& low, const CheckedInterval& kind) {
     for (const SheetInterval& i : s.intervals)
@@ -65,11 +67,13 @@ Table sheet_notes_table(const Sheet& s) {
 
 Table sheet_intervals_table(const Sheet& s) {
     Table t;
-    t.header = {"interval", "low", "high", "low Hz", "high Hz", "vs pure (c)", "beats/s", "tempering"};
+    t.header = {"interval", "low",         "high",    "low Hz",
+                "high Hz",  "vs pure (c)", "beats/s", "tempering"};
     t.align = {A::left, A::left, A::left, A::right, A::right, A::right, A::right, A::left};
     for (const SheetInterval& i : s.intervals)
-        t.add({i.kind->name, name(i.low, s), name(i.high, s), fixed(i.low_hz, 3), fixed(i.high_hz, 3),
-               signed_fixed(i.beat.cents, 3), fixed(i.beat.hz, 3), tempering_name(i.beat.tempering)});
+        t.add({i.kind->name, name(i.low, s), name(i.high, s), fixed(i.low_hz, 3),
+               fixed(i.high_hz, 3), signed_fixed(i.beat.cents, 3), fixed(i.beat.hz, 3),
+               tempering_name(i.beat.tempering)});
     return t;
 }
 
@@ -81,11 +85,14 @@ Table sheet_order_table(const Sheet& s) {
     for (const TuningStep& st : s.order) {
         ++n;
         if (st.kind == TuningStep::Kind::reference) {
-            t.add({std::to_string(n), step_to_cell(st, s), "reference", "-", fixed(st.to_hz, 3), "", ""});
+            // The reference note itself, or (with another start note) that note's frequency.
+            t.add({std::to_string(n), step_to_cell(st, s),
+                   st.to == s.options.reference.note ? "reference" : "its Hz", "-",
+                   fixed(st.to_hz, 3), "", ""});
             continue;
         }
-        t.add({std::to_string(n), step_to_cell(st, s), name(*st.from, s), step_name(st.kind), fixed(st.to_hz, 3),
-               fixed(st.beat.hz, 2), tempering_name(st.beat.tempering)});
+        t.add({std::to_string(n), step_to_cell(st, s), name(*st.from, s), step_name(st.kind),
+               fixed(st.to_hz, 3), fixed(st.beat.hz, 2), tempering_name(st.beat.tempering)});
     }
     return t;
 }
@@ -95,8 +102,10 @@ Table sheet_circle_table(const Sheet& s) {
     t.header = {"fifth", "vs pure (c)", "beats/s (octave 4)", "tempering"};
     t.align = {A::left, A::right, A::right, A::left};
     for (const CircleFifth& f : s.circle)
-        t.add({pitch_class_name(f.from, s.options.spelling) + "-" + pitch_class_name((f.from + 7) % 12, s.options.spelling),
-               signed_fixed(f.beat.cents, 3), fixed(f.beat.hz, 3), tempering_name(f.beat.tempering)});
+        t.add({pitch_class_name(f.from, s.options.spelling) + "-" +
+                   pitch_class_name((f.from + 7) % 12, s.options.spelling),
+               signed_fixed(f.beat.cents, 3), fixed(f.beat.hz, 3),
+               tempering_name(f.beat.tempering)});
     return t;
 }
 
@@ -111,25 +120,25 @@ nlohmann::ordered_json sheet_json(const Sheet& s) {
     };
     J notes = J::array(), intervals = J::array(), order = J::array(), circle = J::array();
     for (const SheetNote& n : s.notes) {
-        J j = {{"note", name(n.note, s)}, {"midi_key", midi_key(n.note)}, {"degree", n.degree}, {"hz", n.hz},
+        J j = {{"note", name(n.note, s)},
+               {"midi_key", midi_key(n.note)},
+               {"degree", n.degree},
+               {"hz", n.hz},
                {"offset_cents", n.offset}};
         j["position"] = pitch_json(n.position);
         notes.push_back(std::move(j));
     }
     for (const SheetInterval& i : s.intervals) {
-        J j = {{"interval", i.kind->name},
-               {"pure", i.kind->pure().str()},
-               {"low", note(i.low)},
-               {"high", note(i.high)},
-               {"low_hz", i.low_hz},
-               {"high_hz", i.high_hz},
+        J j = {{"interval", i.kind->name}, {"pure", i.kind->pure().str()}, {"low", note(i.low)},
+               {"high", note(i.high)},     {"low_hz", i.low_hz},           {"high_hz", i.high_hz},
                {"cents", i.size.cents()}};
         j.update(beat_json(i.beat));
         intervals.push_back(std::move(j));
     }
     int step = 0;
     for (const TuningStep& st : s.order) {
-        J j = {{"step", ++step}, {"kind", step_name(st.kind)}, {"to", note(st.to)}, {"hz", st.to_hz}};
+        J j = {
+            {"step", ++step}, {"kind", step_name(st.kind)}, {"to", note(st.to)}, {"hz", st.to_hz}};
         if (st.kind == TuningStep::Kind::reference) {
             j["from"] = nullptr;
             j["deviation_cents"] = nullptr;
@@ -149,7 +158,8 @@ nlohmann::ordered_json sheet_json(const Sheet& s) {
         circle.push_back(std::move(j));
     }
     return J{{"description", s.description},
-             {"reference", {{"note", name(s.options.reference.note, s)}, {"hz", s.options.reference.hz}}},
+             {"reference",
+              {{"note", name(s.options.reference.note, s)}, {"hz", s.options.reference.hz}}},
              {"tonic", pitch_class_name(s.options.tonic, s.options.spelling)},
              {"range", {{"low", note(s.options.low)}, {"high", note(s.options.high)}}},
              {"notes", std::move(notes)},
@@ -159,8 +169,8 @@ nlohmann::ordered_json sheet_json(const Sheet& s) {
              {"advice", tuning_advice}};
 }
 
-void draw_fifth_circle(Svg& svg, const std::vector<CircleFifth>& circle, double cx, double cy, double r,
-                       Spelling spelling, double font_size) {
+void draw_fifth_circle(Svg& svg, const std::vector<CircleFifth>& circle, double cx, double cy,
+                       double r, Spelling spelling, double font_size) {
     TERZO_ASSERT(circle.size() == 12);
     svg.begin_group("circle of fifths: colour shows tempering, numbers are cents from 3/2");
     svg.circle(cx, cy, r, {"", "#ddd", r / 100});
@@ -168,21 +178,24 @@ void draw_fifth_circle(Svg& svg, const std::vector<CircleFifth>& circle, double 
         const CircleFifth& f = circle[i];
         double a1 = 30.0 * static_cast<double>(i), a2 = a1 + 30.0, mid = a1 + 15.0;
         double dev = std::fabs(f.beat.cents);
-        std::string colour = f.beat.tempering == Tempering::pure ? "#8a8a8a"
+        std::string colour = f.beat.tempering == Tempering::pure     ? "#8a8a8a"
                              : f.beat.tempering == Tempering::narrow ? "#1f5fa8"
                                                                      : "#b8322a";
         // Thickness grows with the deviation up to a Pythagorean comma (23.46 c).
         double width = r * (0.015 + 0.10 * std::min(dev / 23.460010, 1.0));
-        svg.begin_group(pitch_class_name(f.from, spelling) + "-" + pitch_class_name((f.from + 7) % 12, spelling) +
-                        ": " + signed_fixed(f.beat.cents, 3) + " c, " + tempering_name(f.beat.tempering));
+        svg.begin_group(pitch_class_name(f.from, spelling) + "-" +
+                        pitch_class_name((f.from + 7) % 12, spelling) + ": " +
+                        signed_fixed(f.beat.cents, 3) + " c, " + tempering_name(f.beat.tempering));
         svg.arc(cx, cy, r, a1 + 2, a2 - 2, {"", colour, width});
         const double pi = 3.14159265358979323846;
-        double tx = cx + 0.72 * r * std::sin(mid * pi / 180), ty = cy - 0.72 * r * std::cos(mid * pi / 180);
+        double tx = cx + 0.72 * r * std::sin(mid * pi / 180),
+               ty = cy - 0.72 * r * std::cos(mid * pi / 180);
         SvgFont small{font_size * 0.8, SvgFont::Anchor::middle, false, colour};
-        svg.text(tx, ty + font_size * 0.3, f.beat.tempering == Tempering::pure ? "0" : signed_fixed(f.beat.cents, 1),
-                 small);
+        svg.text(tx, ty + font_size * 0.3,
+                 f.beat.tempering == Tempering::pure ? "0" : signed_fixed(f.beat.cents, 1), small);
         svg.end_group();
-        double lx = cx + 1.17 * r * std::sin(a1 * pi / 180), ly = cy - 1.17 * r * std::cos(a1 * pi / 180);
+        double lx = cx + 1.17 * r * std::sin(a1 * pi / 180),
+               ly = cy - 1.17 * r * std::cos(a1 * pi / 180);
         svg.text(lx, ly + font_size * 0.35, pitch_class_name(f.from, spelling),
                  {font_size, SvgFont::Anchor::middle, true, "#000"});
     }
@@ -192,10 +205,11 @@ void draw_fifth_circle(Svg& svg, const std::vector<CircleFifth>& circle, double 
 namespace {
 
 // Draws a table with the given column widths; returns the y below it.
-double draw_table(Svg& svg, const Table& t, const std::vector<double>& widths, double x, double y, double row_h,
-                  double font) {
+double draw_table(Svg& svg, const Table& t, const std::vector<double>& widths, double x, double y,
+                  double row_h, double font) {
     double total = 0;
-    for (double w : widths) total += w;
+    for (double w : widths)
+        total += w;
     auto row = [&](const std::vector<std::string>& cells, bool bold, double yy) {
         double cx = x;
         for (std::size_t i = 0; i < cells.size(); ++i) {
@@ -229,16 +243,18 @@ std::string sheet_svg(const Sheet& s, const Paper& paper) {
     const double header_h = 22, gap = 8, circle_block = 75, footer_h = 18;
     auto height_for = [&](std::size_t note_rows, std::size_t order_rows) {
         return margin + header_h + static_cast<double>(note_rows + 1) * row_h + gap +
-               std::max(static_cast<double>(order_rows + 1) * row_h, circle_block) + footer_h + margin;
+               std::max(static_cast<double>(order_rows + 1) * row_h, circle_block) + footer_h +
+               margin;
     };
     if (height_for(notes.rows.size(), order.rows.size()) > paper.height_mm) {
         // An order has at most two more steps than the range has notes (reference, octaves to it).
         std::size_t fits = 13;
-        while (height_for(fits + 1, fits + 3) <= paper.height_mm) ++fits;
-        fail({"--svg", 0, 0}, "the range " + note_text(s.options.low) + ".." + note_text(s.options.high) + " (" +
-                                  std::to_string(notes.rows.size()) + " notes) does not fit on one " + paper.name +
-                                  " page, which holds " + std::to_string(fits) +
-                                  " notes; give a smaller --range");
+        while (height_for(fits + 1, fits + 3) <= paper.height_mm)
+            ++fits;
+        fail({"--svg", 0, 0},
+             "the range " + note_text(s.options.low) + ".." + note_text(s.options.high) + " (" +
+                 std::to_string(notes.rows.size()) + " notes) does not fit on one " + paper.name +
+                 " page, which holds " + std::to_string(fits) + " notes; give a smaller --range");
     }
     Svg svg(paper.width_mm, paper.height_mm, "mm", "Tuner's sheet: " + s.description);
     double x = margin, y = margin + 6;
@@ -248,7 +264,8 @@ std::string sheet_svg(const Sheet& s, const Paper& paper) {
              "Reference " + note_text(s.options.reference.note, s.options.spelling) + " = " +
                  fixed(s.options.reference.hz, 3) + " Hz. Degree 0 on " +
                  pitch_class_name(s.options.tonic, s.options.spelling) + ". Range " +
-                 note_text(s.options.low, s.options.spelling) + ".." + note_text(s.options.high, s.options.spelling) +
+                 note_text(s.options.low, s.options.spelling) + ".." +
+                 note_text(s.options.high, s.options.spelling) +
                  ". Beats per second of the interval rising from each note.",
              {3.0, SvgFont::Anchor::start, false, "#000"});
     y += 5;
@@ -258,7 +275,8 @@ std::string sheet_svg(const Sheet& s, const Paper& paper) {
     double usable = paper.width_mm - 2 * margin;
     std::vector<double> nw = {14, 13, 21, 19};
     double rest = (usable - 67) / 5;
-    for (int i = 0; i < 5; ++i) nw.push_back(rest);
+    for (int i = 0; i < 5; ++i)
+        nw.push_back(rest);
     y = draw_table(svg, notes, nw, x, y, row_h, font) + 8;
     svg.text(x, y - 2, "Tuning order", {3.4, SvgFont::Anchor::start, true, "#000"});
     std::vector<double> ow = {9, 12, 17, 22, 19, 14, 17};
@@ -266,7 +284,8 @@ std::string sheet_svg(const Sheet& s, const Paper& paper) {
     double cx = margin + 110 + (usable - 110) / 2, cy = y + 34;
     svg.text(cx, y - 2, "Fifths: cents from 3/2", {3.4, SvgFont::Anchor::middle, true, "#000"});
     draw_fifth_circle(svg, s.circle, cx, cy, 24, s.options.spelling, 3.0);
-    svg.text(cx, cy + 37, "blue narrow, red wide, grey pure", {2.5, SvgFont::Anchor::middle, false, "#444"});
+    svg.text(cx, cy + 37, "blue narrow, red wide, grey pure",
+             {2.5, SvgFont::Anchor::middle, false, "#444"});
     double fy = std::max(order_bottom, cy + 40) + 8;
     // Wrap the advice at about half an em per character, which suits the sans-serif faces.
     std::string advice = tuning_advice, line;
@@ -274,7 +293,8 @@ std::string sheet_svg(const Sheet& s, const Paper& paper) {
     for (std::size_t pos = 0; pos < advice.size();) {
         std::size_t end = std::min(advice.size(), pos + per_line);
         if (end < advice.size()) end = advice.rfind(' ', end);
-        svg.text(x, fy, advice.substr(pos, end - pos), {2.6, SvgFont::Anchor::start, false, "#000"});
+        svg.text(x, fy, advice.substr(pos, end - pos),
+                 {2.6, SvgFont::Anchor::start, false, "#000"});
         fy += 3.6;
         pos = end + 1;
     }

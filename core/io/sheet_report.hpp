@@ -37,7 +37,7 @@ std::string sheet_svg(const Sheet& s, const Paper& paper);
 /// Draws the circle of fifths around (cx, cy): note names outside, each fifth as an arc
 /// coloured by tempering (narrow blue, wide red, pure grey) and thicker the further it is
 /// from pure, with its cents from 3/2 inside.
-void draw_fifth_circle(Svg& svg, const std::vector<CircleFifth>& circle, double cx, double cy, double r,
-                       Spelling spelling, double font_size);
+void draw_fifth_circle(Svg& svg, const std::vector<CircleFifth>& circle, double cx, double cy,
+                       double r, Spelling spelling, double font_size);
 
 } // namespace terzo

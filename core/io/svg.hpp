@@ -40,7 +40,7 @@ struct SvgFont {
 /// An SVG document being drawn; str() closes it. Coordinates are user units, with the
 /// canvas width x height; `unit` ("mm", or "" for plain pixels) sets the printed size.
 class Svg {
-public:
+  public:
     Svg(double width, double height, std::string unit, std::string title);
 
     void rect(double x, double y, double w, double h, const SvgStyle& style);
@@ -57,7 +57,7 @@ public:
     /// The finished document.
     std::string str() const;
 
-private:
+  private:
     std::ostringstream body_;
     double width_, height_;
     std::string unit_, title_;

@@ -13,14 +13,18 @@ const CheckedInterval& kind(const char* name) {
     FAIL("no interval " << name);
     return octave_interval();
 }
-double et(int semitones_from_a4) { return 440.0 * std::exp2(semitones_from_a4 / 12.0); }
-Pitch et_interval(int semitones) { return Pitch::from_vector(PrimeVector::prime_power(2, Ratio(semitones, 12))); }
+double et(int semitones_from_a4) {
+    return 440.0 * std::exp2(semitones_from_a4 / 12.0);
+}
+Pitch et_interval(int semitones) {
+    return Pitch::from_vector(PrimeVector::prime_power(2, Ratio(semitones, 12)));
+}
 } // namespace
 
 TEST_CASE("the beat rate of an interval near p/q is |q*f_high - p*f_low|", "[beats]") {
     // Definition in REFERENCES.md section 4 ("lowest coincident partials").
-    CHECK(beat_rate(200.0, 301.0, 3, 2) == Approx(2.0));  // fifth: |2*301 - 3*200|
-    CHECK(beat_rate(200.0, 249.0, 5, 4) == Approx(4.0));  // major third: |4*249 - 5*200|
+    CHECK(beat_rate(200.0, 301.0, 3, 2) == Approx(2.0)); // fifth: |2*301 - 3*200|
+    CHECK(beat_rate(200.0, 249.0, 5, 4) == Approx(4.0)); // major third: |4*249 - 5*200|
     CHECK(beat_rate(264.0, 330.0, 5, 4) == 0.0);
 }
 
@@ -46,14 +50,14 @@ TEST_CASE("12-TET beat rates at A4 = 440 Hz match the piano-tuning handbook", "[
         Tempering t;
     };
     const Case cases[] = {
-        {"fifth", -16, 0.5912, 0.6, Tempering::narrow},        // F3-C4
-        {"fifth", -9, 0.8858, 0.9, Tempering::narrow},         // C4-G4
-        {"major third", -16, 6.9294, 6.9, Tempering::wide},    // F3-A3
-        {"major third", -12, 8.7305, 8.7, Tempering::wide},    // A3-C#4
-        {"major third", -9, 10.3824, 10.4, Tempering::wide},   // C4-E4
-        {"fourth", -12, 0.9943, 1.0, Tempering::wide},         // A3-D4
+        {"fifth", -16, 0.5912, 0.6, Tempering::narrow},         // F3-C4
+        {"fifth", -9, 0.8858, 0.9, Tempering::narrow},          // C4-G4
+        {"major third", -16, 6.9294, 6.9, Tempering::wide},     // F3-A3
+        {"major third", -12, 8.7305, 8.7, Tempering::wide},     // A3-C#4
+        {"major third", -9, 10.3824, 10.4, Tempering::wide},    // C4-E4
+        {"fourth", -12, 0.9943, 1.0, Tempering::wide},          // A3-D4
         {"minor third", -12, 11.8722, 11.9, Tempering::narrow}, // A3-C4
-        {"major sixth", -16, 7.9237, 7.9, Tempering::wide},    // F3-D4
+        {"major sixth", -16, 7.9237, 7.9, Tempering::wide},     // F3-D4
     };
     for (const Case& c : cases) {
         const CheckedInterval& k = kind(c.interval);
@@ -64,7 +68,8 @@ TEST_CASE("12-TET beat rates at A4 = 440 Hz match the piano-tuning handbook", "[
         CHECK(b.tempering == c.t);
         CHECK(b.exact);
         // The direct formula gives the same rate.
-        CHECK(beat_rate(et(c.low), et(c.low + k.semitones), k.p, k.q) == Approx(b.hz).epsilon(1e-9));
+        CHECK(beat_rate(et(c.low), et(c.low + k.semitones), k.p, k.q) ==
+              Approx(b.hz).epsilon(1e-9));
     }
     // W. Braid White, Piano Tuning and Allied Arts, 5th ed. (1946), Table III p. 68, via a
     // quotation (REFERENCES.md section 4 [S]): A3-C4 minor third 11.87.
@@ -74,8 +79,10 @@ TEST_CASE("12-TET beat rates at A4 = 440 Hz match the piano-tuning handbook", "[
 TEST_CASE("12-TET fifths are 1.955 cents narrow and major thirds 13.686 cents wide", "[beats]") {
     // REFERENCES.md section 1, "12-TET errors" [CP], computed with fractions/log2.
     CHECK(beat(et_interval(7), 261.6256, kind("fifth")).cents == Approx(-1.955001).margin(1e-6));
-    CHECK(beat(et_interval(4), 261.6256, kind("major third")).cents == Approx(13.686286).margin(1e-6));
-    CHECK(beat(et_interval(3), 261.6256, kind("minor third")).cents == Approx(-15.641287).margin(1e-6));
+    CHECK(beat(et_interval(4), 261.6256, kind("major third")).cents ==
+          Approx(13.686286).margin(1e-6));
+    CHECK(beat(et_interval(3), 261.6256, kind("minor third")).cents ==
+          Approx(-15.641287).margin(1e-6));
 }
 
 TEST_CASE("an exact pure interval is pure with zero beats, decided exactly", "[beats]") {

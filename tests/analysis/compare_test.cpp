@@ -17,19 +17,22 @@ KeyWeights weights_of(const std::string& text) {
 Scale equal_division(int steps, const Ratio& period, const char* name) {
     std::vector<Pitch> d;
     PrimeVector p = PrimeVector::from_ratio(period);
-    for (int i = 1; i <= steps; ++i) d.push_back(Pitch::from_vector(p.pow(Ratio(i, steps))));
+    for (int i = 1; i <= steps; ++i)
+        d.push_back(Pitch::from_vector(p.pow(Ratio(i, steps))));
     Pitch per = d.back();
     d.pop_back();
     return Scale(name, d, per);
 }
 int count_wolves(const CompareSummary& s, const char* interval) {
     int n = 0;
-    for (const Wolf& w : s.wolves) n += w.interval == interval;
+    for (const Wolf& w : s.wolves)
+        n += w.interval == interval;
     return n;
 }
 } // namespace
 
-TEST_CASE("in 12-TET every fifth is 1.955 c narrow and every major third 13.686 c wide", "[compare]") {
+TEST_CASE("in 12-TET every fifth is 1.955 c narrow and every major third 13.686 c wide",
+          "[compare]") {
     // REFERENCES.md section 1, "12-TET errors" [CP]: -1.955001, +13.686286, -15.641287.
     KeyComparison c = compare_keys(test::equal_12(), CompareOptions{}, "12-TET");
     REQUIRE(c.keys.size() == 24);
@@ -52,7 +55,8 @@ TEST_CASE("in 12-TET every fifth is 1.955 c narrow and every major third 13.686 
     CHECK(note_text(c.keys[21].third) == "C5");
 }
 
-TEST_CASE("quarter-comma meantone has 8 pure major thirds and a wolf fifth of 737.6 c", "[compare]") {
+TEST_CASE("quarter-comma meantone has 8 pure major thirds and a wolf fifth of 737.6 c",
+          "[compare]") {
     // REFERENCES.md 2.2: 1/4-comma fifth 696.578428 c, wolf G#-Eb 737.637287 c, major third
     // 5/4 pure (Aron 1523; Zarlino 1571, Salinas 1577 [M]).
     KeyComparison c = compare_keys(test::quarter_comma(), CompareOptions{}, "qc");
@@ -91,7 +95,8 @@ TEST_CASE("Pythagorean tuning has one wolf and circulating temperaments none", "
 
 TEST_CASE("key weights change the means and the worst keys", "[compare]") {
     CompareOptions o;
-    o.weights = weights_of("# only C major and its relative minor\nC major 3\nA minor 1  # relative\n");
+    o.weights =
+        weights_of("# only C major and its relative minor\nC major 3\nA minor 1  # relative\n");
     KeyComparison c = compare_keys(test::werckmeister_3(), o, "w");
     CHECK(c.summary.weighted);
     // C major: C-G -P/4; A minor: A-E pure. Weighted mean (3 * P/4 + 1 * 0) / 4.
@@ -109,33 +114,44 @@ TEST_CASE("the weights file is parsed strictly", "[compare]") {
     CHECK(w.weight[0] == 0.0);
     SECTION("bad input") {
         REQUIRE_THROWS_WITH(weights_of("C major\n"),
-                            "w.txt:1:1: error: expected \"<note> major|minor <weight>\" such as \"Bb major 2\", found 2 fields");
-        REQUIRE_THROWS_WITH(weights_of("C dorian 1\n"), "w.txt:1:3: error: expected major or minor, found \"dorian\"");
-        REQUIRE_THROWS_WITH(weights_of("\n H major 1\n"), "w.txt:2:2: error: expected a note letter A to G in \"H\"");
-        REQUIRE_THROWS_WITH(weights_of("C major -1\n"),
-                            "w.txt:1:9: error: expected a weight (a non-negative decimal number), found \"-1\"");
-        REQUIRE_THROWS_WITH(weights_of("C major 1x\n"),
-                            "w.txt:1:9: error: expected a weight (a non-negative decimal number), found \"1x\"");
-        REQUIRE_THROWS_WITH(weights_of("C major nan\n"),
-                            "w.txt:1:9: error: expected a weight (a non-negative decimal number), found \"nan\"");
+                            "w.txt:1:1: error: expected \"<note> major|minor <weight>\" such as "
+                            "\"Bb major 2\", found 2 fields");
+        REQUIRE_THROWS_WITH(weights_of("C dorian 1\n"),
+                            "w.txt:1:3: error: expected major or minor, found \"dorian\"");
+        REQUIRE_THROWS_WITH(weights_of("\n H major 1\n"),
+                            "w.txt:2:2: error: expected a note letter A to G in \"H\"");
+        REQUIRE_THROWS_WITH(
+            weights_of("C major -1\n"),
+            "w.txt:1:9: error: expected a weight (a non-negative decimal number), found \"-1\"");
+        REQUIRE_THROWS_WITH(
+            weights_of("C major 1x\n"),
+            "w.txt:1:9: error: expected a weight (a non-negative decimal number), found \"1x\"");
+        REQUIRE_THROWS_WITH(
+            weights_of("C major nan\n"),
+            "w.txt:1:9: error: expected a weight (a non-negative decimal number), found \"nan\"");
         REQUIRE_THROWS_WITH(weights_of("C major 2000000\n"),
                             "w.txt:1:9: error: weight 2000000 is larger than the limit 1000000");
         REQUIRE_THROWS_WITH(weights_of("C major 1\nB# major 2 #again\n"),
                             "w.txt:2:1: error: C major is already given on line 1");
-        REQUIRE_THROWS_WITH(weights_of("# nothing\nC major 0\n"), "w.txt: error: no key has a positive weight");
+        REQUIRE_THROWS_WITH(weights_of("# nothing\nC major 0\n"),
+                            "w.txt: error: no key has a positive weight");
         REQUIRE_THROWS_WITH(read_key_weights("/nonexistent/w.txt"),
                             "/nonexistent/w.txt: error: cannot open the weights file");
         std::string many(10001, '\n');
-        REQUIRE_THROWS_WITH(weights_of(many), "w.txt:10001:1: error: a weights file has at most 10000 lines");
+        REQUIRE_THROWS_WITH(weights_of(many),
+                            "w.txt:10001:1: error: a weights file has at most 10000 lines");
     }
 }
 
 TEST_CASE("a comparison needs a 12-note tuning and an octave on the keyboard", "[compare]") {
-    REQUIRE_THROWS_WITH(compare_keys(equal_division(19, Ratio(2), "19"), CompareOptions{}, "19edo.scl"),
-                        "19edo.scl: error: this needs a 12-note tuning to name its notes C, C#, D …; it has 19 degrees");
+    REQUIRE_THROWS_WITH(
+        compare_keys(equal_division(19, Ratio(2), "19"), CompareOptions{}, "19edo.scl"),
+        "19edo.scl: error: this needs a 12-note tuning to name its notes C, C#, D …; it has 19 "
+        "degrees");
     CompareOptions o;
     o.octave = 9;
-    REQUIRE_THROWS_WITH(compare_keys(test::equal_12(), o, "t"), "--octave: error: octave 9 is outside 0..8");
+    REQUIRE_THROWS_WITH(compare_keys(test::equal_12(), o, "t"),
+                        "--octave: error: octave 9 is outside 0..8");
 }
 
 TEST_CASE("the nearest simple ratio respects the odd limit", "[compare]") {
@@ -145,7 +161,7 @@ TEST_CASE("the nearest simple ratio respects the odd limit", "[compare]") {
     CHECK(nearest_simple_ratio(1200.0 * 10 / 31, 5) == Ratio(5, 4));
     CHECK(nearest_simple_ratio(1200.0 * 31 / 53, 3) == Ratio(3, 2));
     CHECK(nearest_simple_ratio(968.8, 7) == Ratio(7, 4));
-    CHECK(nearest_simple_ratio(968.8, 5) == Ratio(5, 3)); // 9/5 and 16/9 need 9
+    CHECK(nearest_simple_ratio(968.8, 5) == Ratio(5, 3));  // 9/5 and 16/9 need 9
     CHECK(nearest_simple_ratio(990.0, 9) == Ratio(16, 9)); // 996.1 c, nearer than 7/4 and 9/5
     CHECK(nearest_simple_ratio(-700.0, 3) == Ratio(2, 3));
     CHECK(nearest_simple_ratio(2400.0, 1) == Ratio(4));
@@ -185,7 +201,8 @@ TEST_CASE("interval classes list every size a step span takes", "[compare]") {
         CHECK(classes[5].sizes[0].deviation == Approx(-6.533).margin(5e-4));
     }
     SECTION("cents-only sizes group within 1e-6 c") {
-        Scale s("c", {Pitch::from_cents(100.0), Pitch::from_cents(200.0000000001)}, Pitch::from_cents(300.0));
+        Scale s("c", {Pitch::from_cents(100.0), Pitch::from_cents(200.0000000001)},
+                Pitch::from_cents(300.0));
         auto classes = interval_classes(s, 3, "c");
         CHECK(classes[0].sizes.size() == 1);
         CHECK(classes[0].sizes[0].count == 3);
@@ -196,7 +213,8 @@ TEST_CASE("interval classes list every size a step span takes", "[compare]") {
         REQUIRE_THROWS_WITH(interval_classes(test::equal_12(), 101, "t"),
                             "--odd-limit: error: odd limit 101 must be an odd number from 1 to 99");
         REQUIRE_THROWS_WITH(interval_classes(equal_division(257, Ratio(2), "e"), 5, "257.scl"),
-                            "257.scl: error: interval classes are made for tunings of at most 256 degrees; this one has 257");
+                            "257.scl: error: interval classes are made for tunings of at most 256 "
+                            "degrees; this one has 257");
     }
 }
 
@@ -208,8 +226,8 @@ TEST_CASE("each key's resultant fit is computed by the resultant engine", "[comp
     // order-3 tones of 4:5:6, such as 2G-E = 7/4 C, land on no 5-limit note, so the just fit
     // is not 0: a property of the fit's definition in fit.hpp, not a defect here.)
     std::vector<Pitch> just;
-    for (auto r : {Ratio(16, 15), Ratio(9, 8), Ratio(6, 5), Ratio(5, 4), Ratio(4, 3), Ratio(45, 32), Ratio(3, 2),
-                   Ratio(8, 5), Ratio(5, 3), Ratio(9, 5), Ratio(15, 8)})
+    for (auto r : {Ratio(16, 15), Ratio(9, 8), Ratio(6, 5), Ratio(5, 4), Ratio(4, 3), Ratio(45, 32),
+                   Ratio(3, 2), Ratio(8, 5), Ratio(5, 3), Ratio(9, 5), Ratio(15, 8)})
         just.push_back(Pitch::from_ratio(r));
     Scale ji("just", just, Pitch::from_ratio(Ratio(2)));
     KeyComparison j = compare_keys(ji, CompareOptions{}, "ji");
@@ -218,7 +236,8 @@ TEST_CASE("each key's resultant fit is computed by the resultant engine", "[comp
     REQUIRE(e.keys[0].fit);
     CHECK(*j.keys[0].fit < *e.keys[0].fit);
     // Every 12-TET key is the same triad transposed, so every key has the same fit.
-    for (const KeyReport& k : e.keys) CHECK(*k.fit == Approx(*e.keys[0].fit).margin(1e-6));
+    for (const KeyReport& k : e.keys)
+        CHECK(*k.fit == Approx(*e.keys[0].fit).margin(1e-6));
     REQUIRE(e.summary.mean_fit);
     CHECK(*e.summary.mean_fit == Approx(*e.keys[0].fit).margin(1e-6));
     CompareOptions off;

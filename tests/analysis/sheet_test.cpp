@@ -8,8 +8,12 @@
 using namespace terzo;
 
 namespace {
-NoteName note(const char* text) { return parse_note(text, {"test", 0, 0}); }
-PitchReference ref(const char* text) { return parse_pitch_reference(text, {"test", 0, 0}); }
+NoteName note(const char* text) {
+    return parse_note(text, {"test", 0, 0});
+}
+PitchReference ref(const char* text) {
+    return parse_pitch_reference(text, {"test", 0, 0});
+}
 
 const SheetInterval& find(const Sheet& s, const char* kind, const char* low) {
     for (const auto& i : s.intervals)
@@ -34,7 +38,8 @@ TEST_CASE("a 12-TET sheet at A4 = 440 has the handbook frequencies and beat rate
     CHECK(find_note(s, "C4").hz == Approx(261.6256).margin(5e-5));
     CHECK(find_note(s, "E4").hz == Approx(329.6276).margin(5e-5));
     CHECK(find_note(s, "A3").hz == Approx(220.0).margin(1e-9));
-    for (const auto& n : s.notes) CHECK(std::fabs(n.offset) < 1e-9);
+    for (const auto& n : s.notes)
+        CHECK(std::fabs(n.offset) < 1e-9);
     // Beat rates: REFERENCES.md section 4 (computed; Capleton 2007 via Teki et al. 2012 [S]).
     CHECK(find(s, "fifth", "F3").beat.hz == Approx(0.5912).margin(5e-5));
     CHECK(find(s, "major third", "F3").beat.hz == Approx(6.9294).margin(5e-5));
@@ -55,7 +60,8 @@ TEST_CASE("a sheet lists every checked interval that fits in the range", "[sheet
     CHECK(s.intervals.back().high == note("F4"));
 }
 
-TEST_CASE("Werckmeister III at A4 = 440 has the published frequencies and constructed beats", "[sheet]") {
+TEST_CASE("Werckmeister III at A4 = 440 has the published frequencies and constructed beats",
+          "[sheet]") {
     SheetOptions o;
     o.low = note("C3");
     o.high = note("G4");
@@ -101,8 +107,10 @@ TEST_CASE("quarter-comma meantone beats follow the meantone formula", "[sheet]")
     // fifth on C4 beats at C4 * (3 - 2 * 5^(1/4)) (narrow); a fourth on A3 at
     // A3 * (4 - 3 * 2 / 5^(1/4)) (wide), from the definition in REFERENCES.md section 4.
     double c4 = 880.0 / std::pow(5.0, 0.75);
-    CHECK(find(s, "fifth", "C4").beat.hz == Approx(c4 * (3 - 2 * std::pow(5.0, 0.25))).epsilon(1e-12));
-    CHECK(find(s, "fourth", "A3").beat.hz == Approx(220.0 * (3 * 2 / std::pow(5.0, 0.25) - 4)).epsilon(1e-12));
+    CHECK(find(s, "fifth", "C4").beat.hz ==
+          Approx(c4 * (3 - 2 * std::pow(5.0, 0.25))).epsilon(1e-12));
+    CHECK(find(s, "fourth", "A3").beat.hz ==
+          Approx(220.0 * (3 * 2 / std::pow(5.0, 0.25) - 4)).epsilon(1e-12));
     CHECK(find(s, "fifth", "C4").beat.tempering == Tempering::narrow);
     CHECK(find(s, "fourth", "A3").beat.tempering == Tempering::wide);
 }
@@ -133,9 +141,11 @@ TEST_CASE("the tonic names degree 0", "[sheet]") {
 TEST_CASE("the tuning order alternates fifths and fourths, then octaves", "[sheet]") {
     Sheet s = make_sheet(test::equal_12(), SheetOptions{}, "12-TET");
     // Common practice, no source: from A (the fork) into the temperament octave F3..E4.
-    const char* expected[] = {"A4", "A3", "E4", "B3", "F#3", "C#4", "G#3", "Eb4", "Bb3", "F3", "C4", "G3", "D4", "F4"};
+    const char* expected[] = {"A4",  "A3",  "E4", "B3", "F#3", "C#4", "G#3",
+                              "Eb4", "Bb3", "F3", "C4", "G3",  "D4",  "F4"};
     REQUIRE(s.order.size() == 14);
-    for (std::size_t i = 0; i < 14; ++i) CHECK(note_text(s.order[i].to) == expected[i]);
+    for (std::size_t i = 0; i < 14; ++i)
+        CHECK(note_text(s.order[i].to) == expected[i]);
     CHECK(s.order[0].kind == TuningStep::Kind::reference);
     CHECK_FALSE(s.order[0].from);
     CHECK(s.order[1].kind == TuningStep::Kind::octave_down);
@@ -176,17 +186,20 @@ TEST_CASE("the circle of fifths shows each fifth's tempering", "[sheet]") {
 TEST_CASE("bad sheet requests are refused with a clear message", "[sheet]") {
     SheetOptions o;
     SECTION("a tuning that is not 12 notes") {
-        Scale five("five", {Pitch::from_ratio(Ratio(9, 8)), Pitch::from_ratio(Ratio(5, 4)),
-                            Pitch::from_ratio(Ratio(3, 2)), Pitch::from_ratio(Ratio(5, 3))},
+        Scale five("five",
+                   {Pitch::from_ratio(Ratio(9, 8)), Pitch::from_ratio(Ratio(5, 4)),
+                    Pitch::from_ratio(Ratio(3, 2)), Pitch::from_ratio(Ratio(5, 3))},
                    Pitch::from_ratio(Ratio(2)));
         REQUIRE_THROWS_WITH(make_sheet(five, o, "five.scl"),
-                            "five.scl: error: this needs a 12-note tuning to name its notes C, C#, D …; it has 5 degrees");
+                            "five.scl: error: this needs a 12-note tuning to name its notes C, C#, "
+                            "D …; it has 5 degrees");
     }
     SECTION("a range under an octave") {
         o.low = note("C4");
         o.high = note("B4");
         REQUIRE_THROWS_WITH(make_sheet(test::equal_12(), o, "t"),
-                            "--range: error: the range C4..B4 must span at least an octave (12 semitones) so that every note is set");
+                            "--range: error: the range C4..B4 must span at least an octave (12 "
+                            "semitones) so that every note is set");
     }
     SECTION("a range off the keyboard") {
         o.low = note("C8");
@@ -196,7 +209,8 @@ TEST_CASE("bad sheet requests are refused with a clear message", "[sheet]") {
     }
     SECTION("a start note outside the temperament octave") {
         o.start = note("F4");
-        REQUIRE_THROWS_WITH(make_sheet(test::equal_12(), o, "t"),
-                            "--start: error: start note F4 is outside the temperament octave F3..E4");
+        REQUIRE_THROWS_WITH(
+            make_sheet(test::equal_12(), o, "t"),
+            "--start: error: start note F4 is outside the temperament octave F3..E4");
     }
 }

@@ -9,9 +9,13 @@
 namespace terzo::test {
 
 /// The Pythagorean comma 3^12 / 2^19 as a prime vector.
-inline PrimeVector pythagorean_comma() { return PrimeVector::from_ratio(Ratio(531441, 524288)); }
+inline PrimeVector pythagorean_comma() {
+    return PrimeVector::from_ratio(Ratio(531441, 524288));
+}
 /// The syntonic comma 81/80.
-inline PrimeVector syntonic_comma() { return PrimeVector::from_ratio(Ratio(81, 80)); }
+inline PrimeVector syntonic_comma() {
+    return PrimeVector::from_ratio(Ratio(81, 80));
+}
 
 /// A 12-note scale on C from its twelve fifths in circle order C-G, G-D … F-C. Notes C#..G#
 /// are reached by rising fifths from C, F, Bb, Eb by falling ones, so the G#-Eb fifth is the
@@ -20,8 +24,10 @@ inline Scale scale_from_fifths(const std::vector<PrimeVector>& fifths, const cha
     std::vector<PrimeVector> pc(12);
     PrimeVector two = PrimeVector::from_ratio(Ratio(2));
     auto reduce = [&](PrimeVector v) {
-        while (v.cents() >= 1200.0) v = v / two;
-        while (v.cents() < 0.0) v = v * two;
+        while (v.cents() >= 1200.0)
+            v = v / two;
+        while (v.cents() < 0.0)
+            v = v * two;
         return v;
     };
     PrimeVector up;
@@ -35,11 +41,14 @@ inline Scale scale_from_fifths(const std::vector<PrimeVector>& fifths, const cha
         pc[static_cast<std::size_t>((12 - 7 * i % 12) % 12)] = down;
     }
     std::vector<Pitch> degrees;
-    for (int i = 1; i < 12; ++i) degrees.push_back(Pitch::from_vector(pc[static_cast<std::size_t>(i)]));
+    for (int i = 1; i < 12; ++i)
+        degrees.push_back(Pitch::from_vector(pc[static_cast<std::size_t>(i)]));
     return Scale(name, degrees, Pitch::from_ratio(Ratio(2)));
 }
 
-inline PrimeVector pure_fifth() { return PrimeVector::from_ratio(Ratio(3, 2)); }
+inline PrimeVector pure_fifth() {
+    return PrimeVector::from_ratio(Ratio(3, 2));
+}
 
 /// 12-tone equal temperament: every fifth P/12 narrow.
 inline Scale equal_12() {

@@ -14,7 +14,9 @@ TEST_CASE("terzo compare prints keys, summary, wolves and interval classes", "[c
     CHECK(r.err.empty());
     // REFERENCES.md section 1 and 4: 12-TET C major -1.955 / +13.686 / -15.641 c, C4-G4 0.89,
     // C4-E4 10.38 beats/s.
-    CHECK(r.out.find("C major   C4 E4 G4      -1.955       0.89  +13.686     10.38  -15.641     17.79") != std::string::npos);
+    CHECK(r.out.find(
+              "C major   C4 E4 G4      -1.955       0.89  +13.686     10.38  -15.641     17.79") !=
+          std::string::npos);
     // REFERENCES.md 2.2: the quarter-comma wolf G#-Eb is 737.637 c, 35.682 c wide of 3/2.
     CHECK(r.out.find("fifth        G#-Eb      +35.682") != std::string::npos);
     CHECK(r.out.find("Interval classes") != std::string::npos);
@@ -24,7 +26,8 @@ TEST_CASE("terzo compare --json, --csv and --svg", "[compare]") {
     auto dir = terzo::test::temp_folder("compare-out");
     std::string weights = (dir / "w.txt").string(), svg = (dir / "c.svg").string();
     std::ofstream(weights) << "C major 2\nG major 1\nA minor 1\n";
-    auto j = run_terzo("compare 'equal 12' 'equal 19' --json --weights " + weights + " --svg " + svg);
+    auto j =
+        run_terzo("compare 'equal 12' 'equal 19' --json --weights " + weights + " --svg " + svg);
     REQUIRE(j.status == 0);
     auto doc = nlohmann::json::parse(j.out);
     CHECK(doc["weights"]["C major"] == 2.0);
@@ -41,8 +44,10 @@ TEST_CASE("terzo compare --json, --csv and --svg", "[compare]") {
     CHECK(found);
     CHECK(terzo::test::slurp(svg).find("<svg xmlns") != std::string::npos);
     auto csv = run_terzo("compare 'equal 12' 'equal 12' --csv --part summary --no-fit");
-    CHECK(csv.out.rfind("tuning,5th mean,5th worst,M3 mean,M3 worst,m3 mean,m3 worst,pure 5ths,pure M3,wolves,mean fit\r\n"
-                        "equal 12,1.955,1.955,13.686,13.686,15.641,15.641,0,0,0,\r\n", 0) == 0);
+    CHECK(csv.out.rfind("tuning,5th mean,5th worst,M3 mean,M3 worst,m3 mean,m3 worst,pure "
+                        "5ths,pure M3,wolves,mean fit\r\n"
+                        "equal 12,1.955,1.955,13.686,13.686,15.641,15.641,0,0,0,\r\n",
+                        0) == 0);
     std::filesystem::remove_all(dir);
 }
 
@@ -56,7 +61,8 @@ TEST_CASE("terzo compare reports bad input and prints nothing", "[compare]") {
     CHECK(r.err == weights + ":2:1: error: C major is already given on line 1\n");
     CHECK(run_terzo("compare 'equal 12' 'equal 12' --odd-limit 8").err ==
           "--odd-limit: error: odd limit 8 must be an odd number from 1 to 99\n");
-    CHECK(run_terzo("compare 'equal 12' 'equal 12' --octave 9").err == "--octave: error: octave 9 is outside 0..8\n");
+    CHECK(run_terzo("compare 'equal 12' 'equal 12' --octave 9").err ==
+          "--octave: error: octave 9 is outside 0..8\n");
     CHECK(run_terzo("compare 'equal 19' 'equal 31' --svg " + (dir / "x.svg").string()).err ==
           "--svg: error: the plots need at least one 12-note tuning\n");
     CHECK(run_terzo("compare 'equal 12'").status != 0); // two tunings at least

@@ -12,7 +12,8 @@ TEST_CASE("terzo sheet prints frequencies, beats and an order for a recipe", "[s
     REQUIRE(r.status == 0);
     CHECK(r.err.empty());
     // F3 174.614 Hz; F3-C4 0.5912, F3-Bb3 0.7892, F3-A3 6.9294 beats/s (REFERENCES.md section 4).
-    CHECK(r.out.find("F3         5  174.614       0.00  0.59 narrow  0.79 wide   6.93 wide") != std::string::npos);
+    CHECK(r.out.find("F3         5  174.614       0.00  0.59 narrow  0.79 wide   6.93 wide") !=
+          std::string::npos);
     CHECK(r.out.find("   1  A4    reference  -            440.000") != std::string::npos);
     CHECK(r.out.find("instrument maker") != std::string::npos);
 }
@@ -25,7 +26,8 @@ TEST_CASE("terzo sheet --json and --csv give the chosen part", "[sheet]") {
     CHECK(doc["notes"].size() == 13);
     auto c = run_terzo("sheet 'equal 12' --csv --part order");
     REQUIRE(c.status == 0);
-    CHECK(c.out.rfind("step,tune,from,by,Hz,beats/s,tempering\r\n1,A4,reference,-,440.000,,\r\n", 0) == 0);
+    CHECK(c.out.rfind("step,tune,from,by,Hz,beats/s,tempering\r\n1,A4,reference,-,440.000,,\r\n",
+                      0) == 0);
 }
 
 TEST_CASE("terzo sheet --svg writes a file once and refuses to overwrite it", "[sheet]") {
@@ -52,16 +54,19 @@ TEST_CASE("terzo sheet reports bad options and writes nothing", "[sheet]") {
     auto r = run_terzo("sheet 'equal 12' --range F3..E4 --svg " + file);
     CHECK(r.status == 1);
     CHECK(r.out.empty());
-    CHECK(r.err == "--range: error: the range F3..E4 must span at least an octave (12 semitones) so that every note is set\n");
+    CHECK(r.err == "--range: error: the range F3..E4 must span at least an octave (12 semitones) "
+                   "so that every note is set\n");
     CHECK_FALSE(std::filesystem::exists(file));
     CHECK(run_terzo("sheet 'equal 12' --range F3-F4").err ==
           "--range: error: expected LOW..HIGH such as F3..F4, found \"F3-F4\"\n");
     CHECK(run_terzo("sheet 'equal 12' --pitch A4=0").err ==
-          "--pitch: error: frequency 0 Hz in \"A4=0\" is outside the accepted range (above 0, at most 20000 Hz)\n");
+          "--pitch: error: frequency 0 Hz in \"A4=0\" is outside the accepted range (above 0, at "
+          "most 20000 Hz)\n");
     CHECK(run_terzo("sheet 'equal 12' --part keys").err ==
           "--part: error: unknown part \"keys\"; use notes, intervals, order or fifths\n");
-    CHECK(run_terzo("sheet 'equal 12' --paper a5").err == "--paper: error: unknown paper size \"a5\"; use a4 or letter\n");
-    CHECK(run_terzo("sheet 'equal 19'").err ==
-          "equal 19: error: this needs a 12-note tuning to name its notes C, C#, D …; it has 19 degrees\n");
+    CHECK(run_terzo("sheet 'equal 12' --paper a5").err ==
+          "--paper: error: unknown paper size \"a5\"; use a4 or letter\n");
+    CHECK(run_terzo("sheet 'equal 19'").err == "equal 19: error: this needs a 12-note tuning to "
+                                               "name its notes C, C#, D …; it has 19 degrees\n");
     std::filesystem::remove_all(dir);
 }

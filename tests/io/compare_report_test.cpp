@@ -10,7 +10,8 @@ namespace {
 using Keys = std::vector<std::string>;
 Keys keys_of(const nlohmann::ordered_json& j) {
     Keys k;
-    for (auto it = j.begin(); it != j.end(); ++it) k.push_back(it.key());
+    for (auto it = j.begin(); it != j.end(); ++it)
+        k.push_back(it.key());
     return k;
 }
 ComparedTuning compared(const Scale& s, const char* name, bool fit = false) {
@@ -28,8 +29,9 @@ std::vector<ComparedTuning> two() {
     return {compared(test::equal_12(), "et.scl"), compared(test::quarter_comma(), "qc.scl")};
 }
 Scale five_note() {
-    return Scale("pentatonic", {Pitch::from_ratio(Ratio(9, 8)), Pitch::from_ratio(Ratio(5, 4)),
-                                Pitch::from_ratio(Ratio(3, 2)), Pitch::from_ratio(Ratio(5, 3))},
+    return Scale("pentatonic",
+                 {Pitch::from_ratio(Ratio(9, 8)), Pitch::from_ratio(Ratio(5, 4)),
+                  Pitch::from_ratio(Ratio(3, 2)), Pitch::from_ratio(Ratio(5, 3))},
                  Pitch::from_ratio(Ratio(2)));
 }
 } // namespace
@@ -40,21 +42,26 @@ TEST_CASE("the comparison's JSON has the documented keys", "[compare_report]") {
     CompareOptions o;
     o.fit = false;
     auto j = compare_json(list, o, 5, Spelling::mixed);
-    CHECK(keys_of(j) == Keys{"reference", "tonic", "octave", "odd_limit", "fit_order", "weights", "wolf_thresholds", "tunings"});
+    CHECK(keys_of(j) == Keys{"reference", "tonic", "octave", "odd_limit", "fit_order", "weights",
+                             "wolf_thresholds", "tunings"});
     CHECK(j["fit_order"].is_null());
     CHECK(j["weights"].is_null());
     CHECK(j["wolf_thresholds"]["fifth_cents"].get<double>() == Approx(11.730005));
     REQUIRE(j["tunings"].size() == 3);
     const auto& t = j["tunings"][1];
-    CHECK(keys_of(t) == Keys{"name", "description", "size", "keys", "summary", "circle_of_fifths", "interval_classes"});
-    CHECK(keys_of(t["keys"][0]) == Keys{"key", "notes", "fifth", "major_third", "minor_third", "fit_cents"});
+    CHECK(keys_of(t) == Keys{"name", "description", "size", "keys", "summary", "circle_of_fifths",
+                             "interval_classes"});
+    CHECK(keys_of(t["keys"][0]) ==
+          Keys{"key", "notes", "fifth", "major_third", "minor_third", "fit_cents"});
     CHECK(t["keys"][0]["notes"] == nlohmann::ordered_json{"C4", "E4", "G4"});
-    CHECK(keys_of(t["keys"][0]["fifth"]) == Keys{"deviation_cents", "beats_per_second", "tempering", "exact"});
+    CHECK(keys_of(t["keys"][0]["fifth"]) ==
+          Keys{"deviation_cents", "beats_per_second", "tempering", "exact"});
     CHECK(t["keys"][0]["major_third"]["tempering"] == "pure");
-    CHECK(keys_of(t["summary"]) ==
-          Keys{"weighted", "mean_fifth_cents", "worst_fifth_cents", "mean_major_third_cents", "worst_major_third_cents",
-               "mean_minor_third_cents", "worst_minor_third_cents", "pure_fifths", "pure_major_thirds",
-               "pure_minor_thirds", "wolves", "mean_fit_cents"});
+    CHECK(keys_of(t["summary"]) == Keys{"weighted", "mean_fifth_cents", "worst_fifth_cents",
+                                        "mean_major_third_cents", "worst_major_third_cents",
+                                        "mean_minor_third_cents", "worst_minor_third_cents",
+                                        "pure_fifths", "pure_major_thirds", "pure_minor_thirds",
+                                        "wolves", "mean_fit_cents"});
     CHECK(t["summary"]["pure_major_thirds"] == 8); // quarter-comma, REFERENCES.md 2.2
     CHECK(keys_of(t["summary"]["wolves"][0]) == Keys{"interval", "notes", "deviation_cents"});
     CHECK(keys_of(t["interval_classes"][0]) == Keys{"steps", "sizes"});
@@ -69,7 +76,8 @@ TEST_CASE("the summary and wolves tables name the quarter-comma wolf", "[compare
     Table s = summary_table(list);
     REQUIRE(s.rows.size() == 2);
     // 12-TET: REFERENCES.md section 1, fifths -1.955, major thirds +13.686, minor -15.641.
-    CHECK(s.rows[0] == Keys{"et.scl", "1.955", "1.955", "13.686", "13.686", "15.641", "15.641", "0", "0", "0", ""});
+    CHECK(s.rows[0] == Keys{"et.scl", "1.955", "1.955", "13.686", "13.686", "15.641", "15.641", "0",
+                            "0", "0", ""});
     CHECK(s.rows[1][8] == "8");
     Table w = wolves_table(list, Spelling::mixed);
     bool wolf_fifth = false;
@@ -88,7 +96,8 @@ TEST_CASE("key and class tables carry the per-key numbers", "[compare_report]") 
     Table k = key_table(*list[0].keys, Spelling::mixed);
     CHECK(k.header.size() == 8); // no fit column when fits were not computed
     // C4-G4 0.8858 and C4-E4 10.3824 beats/s at A4 = 440, REFERENCES.md section 4.
-    CHECK(k.rows[0] == Keys{"C major", "C4 E4 G4", "-1.955", "0.89", "+13.686", "10.38", "-15.641", "17.79"});
+    CHECK(k.rows[0] ==
+          Keys{"C major", "C4 E4 G4", "-1.955", "0.89", "+13.686", "10.38", "-15.641", "17.79"});
     Table longt = keys_long_table(list, Spelling::mixed);
     CHECK(longt.rows.size() == 48);
     CHECK(longt.rows[24][0] == "qc.scl");

@@ -9,11 +9,16 @@
 using namespace terzo;
 
 namespace {
-NoteName note(const char* text) { return parse_note(text, {"test", 0, 0}); }
-Sheet w3_sheet() { return make_sheet(test::werckmeister_3(), SheetOptions{}, "w3"); }
+NoteName note(const char* text) {
+    return parse_note(text, {"test", 0, 0});
+}
+Sheet w3_sheet() {
+    return make_sheet(test::werckmeister_3(), SheetOptions{}, "w3");
+}
 std::vector<std::string> keys_of(const nlohmann::ordered_json& j) {
     std::vector<std::string> k;
-    for (auto it = j.begin(); it != j.end(); ++it) k.push_back(it.key());
+    for (auto it = j.begin(); it != j.end(); ++it)
+        k.push_back(it.key());
     return k;
 }
 using Keys = std::vector<std::string>;
@@ -21,15 +26,17 @@ using Keys = std::vector<std::string>;
 
 TEST_CASE("the sheet's JSON has the documented keys", "[sheet_report]") {
     auto j = sheet_json(w3_sheet());
-    CHECK(keys_of(j) == Keys{"description", "reference", "tonic", "range", "notes", "intervals", "order",
-                             "circle_of_fifths", "advice"});
+    CHECK(keys_of(j) == Keys{"description", "reference", "tonic", "range", "notes", "intervals",
+                             "order", "circle_of_fifths", "advice"});
     CHECK(j["reference"]["note"] == "A4");
     CHECK(j["reference"]["hz"] == 440.0);
     CHECK(j["range"]["low"] == "F3");
-    CHECK(keys_of(j["notes"][0]) == Keys{"note", "midi_key", "degree", "hz", "offset_cents", "position"});
+    CHECK(keys_of(j["notes"][0]) ==
+          Keys{"note", "midi_key", "degree", "hz", "offset_cents", "position"});
     CHECK(j["notes"][0]["midi_key"] == 53);
-    CHECK(keys_of(j["intervals"][0]) == Keys{"interval", "pure", "low", "high", "low_hz", "high_hz", "cents",
-                                             "deviation_cents", "beats_per_second", "tempering", "exact"});
+    CHECK(keys_of(j["intervals"][0]) == Keys{"interval", "pure", "low", "high", "low_hz", "high_hz",
+                                             "cents", "deviation_cents", "beats_per_second",
+                                             "tempering", "exact"});
     CHECK(j["intervals"][0]["pure"] == "3/2");
     CHECK(j["intervals"][0]["tempering"] == "pure"); // F3-C4 in Werckmeister III
     CHECK(keys_of(j["order"][0]) == Keys{"step", "kind", "to", "hz", "from", "deviation_cents",
@@ -37,18 +44,22 @@ TEST_CASE("the sheet's JSON has the documented keys", "[sheet_report]") {
     CHECK(j["order"][0]["from"].is_null());
     CHECK(j["order"][1]["kind"] == "octave down");
     CHECK(j["circle_of_fifths"].size() == 12);
-    CHECK(keys_of(j["circle_of_fifths"][0]) == Keys{"from", "to", "deviation_cents", "beats_per_second", "tempering", "exact"});
-    CHECK(j["circle_of_fifths"][0]["deviation_cents"].get<double>() == Approx(-23.460010 / 4).margin(1e-6));
+    CHECK(keys_of(j["circle_of_fifths"][0]) ==
+          Keys{"from", "to", "deviation_cents", "beats_per_second", "tempering", "exact"});
+    CHECK(j["circle_of_fifths"][0]["deviation_cents"].get<double>() ==
+          Approx(-23.460010 / 4).margin(1e-6));
     CHECK(j["advice"] == tuning_advice);
 }
 
 TEST_CASE("the notes table puts each note's rising intervals beside it", "[sheet_report]") {
     Table t = sheet_notes_table(make_sheet(test::equal_12(), SheetOptions{}, "12"));
-    CHECK(t.header == Keys{"note", "degree", "Hz", "vs 12-TET", "5th up", "4th up", "M3 up", "m3 up", "M6 up"});
+    CHECK(t.header ==
+          Keys{"note", "degree", "Hz", "vs 12-TET", "5th up", "4th up", "M3 up", "m3 up", "M6 up"});
     REQUIRE(t.rows.size() == 13);
     // F3: 174.614 Hz, 12-TET rates from REFERENCES.md section 4 (F3-C4 0.5912, F3-Bb3 0.7892,
     // F3-A3 6.9294, F3-Ab3 9.4230, F3-D4 7.9237).
-    CHECK(t.rows[0] == Keys{"F3", "5", "174.614", "0.00", "0.59 narrow", "0.79 wide", "6.93 wide", "9.42 narrow", "7.92 wide"});
+    CHECK(t.rows[0] == Keys{"F3", "5", "174.614", "0.00", "0.59 narrow", "0.79 wide", "6.93 wide",
+                            "9.42 narrow", "7.92 wide"});
     CHECK(t.rows[12][4].empty());
     CHECK(beat_cell(Beat{0, 0, Tempering::pure, true}) == "pure");
 }
@@ -58,6 +69,10 @@ TEST_CASE("the order and interval tables read as a tuner's steps", "[sheet_repor
     Table o = sheet_order_table(s);
     CHECK(o.rows[0] == Keys{"1", "A4", "reference", "-", "440.000", "", ""});
     CHECK(o.rows[1] == Keys{"2", "A3", "A4", "octave down", "220.000", "0.00", "pure"});
+    SheetOptions from_c;
+    from_c.start = note("C4");
+    CHECK(sheet_order_table(make_sheet(test::equal_12(), from_c, "12")).rows[0] ==
+          Keys{"1", "C4", "its Hz", "-", "261.626", "", ""});
     SheetOptions wide;
     wide.high = note("G4");
     Sheet g = make_sheet(test::werckmeister_3(), wide, "w3");
@@ -93,9 +108,11 @@ TEST_CASE("a range too large for one page is refused", "[sheet_report]") {
     o.high = note("C5");
     Sheet s = make_sheet(test::equal_12(), o, "12");
     REQUIRE_THROWS_WITH(sheet_svg(s, paper_a4()),
-                        "--svg: error: the range C2..C5 (37 notes) does not fit on one A4 page, which holds 27 notes; give a smaller --range");
+                        "--svg: error: the range C2..C5 (37 notes) does not fit on one A4 page, "
+                        "which holds 27 notes; give a smaller --range");
     REQUIRE_THROWS_WITH(sheet_svg(s, paper_letter()),
-                        "--svg: error: the range C2..C5 (37 notes) does not fit on one Letter page, which holds 25 notes; give a smaller --range");
+                        "--svg: error: the range C2..C5 (37 notes) does not fit on one Letter "
+                        "page, which holds 25 notes; give a smaller --range");
     o.low = note("F3");
     o.high = note("F5"); // two octaves fit on either
     CHECK_NOTHROW(sheet_svg(make_sheet(test::equal_12(), o, "12"), paper_letter()));

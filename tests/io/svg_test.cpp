@@ -41,11 +41,16 @@ TEST_CASE("a drawing is well-formed XML with every shape in place", "[svg]") {
     svg.text(20, 20, "Bb3 < C4 & \"D4\"", {3, SvgFont::Anchor::middle, true, "#444"});
     svg.end_group();
     std::string doc = svg.str();
-    CHECK(doc.rfind("<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<svg xmlns=\"http://www.w3.org/2000/svg\"", 0) == 0);
-    CHECK(doc.find("width=\"210mm\" height=\"297mm\" viewBox=\"0 0 210 297\"") != std::string::npos);
+    CHECK(
+        doc.rfind(
+            "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<svg xmlns=\"http://www.w3.org/2000/svg\"",
+            0) == 0);
+    CHECK(doc.find("width=\"210mm\" height=\"297mm\" viewBox=\"0 0 210 297\"") !=
+          std::string::npos);
     CHECK(doc.find("<title>A &lt;test&gt; &amp; &quot;page&quot;</title>") != std::string::npos);
-    CHECK(doc.find("M 100 80 A 20 20 0 0 1 110 82.679") != std::string::npos); // 30 degrees clockwise
-    CHECK(doc.find(" 0 1 1 ") != std::string::npos);                            // the 270-degree arc is large
+    CHECK(doc.find("M 100 80 A 20 20 0 0 1 110 82.679") !=
+          std::string::npos);                        // 30 degrees clockwise
+    CHECK(doc.find(" 0 1 1 ") != std::string::npos); // the 270-degree arc is large
     CHECK(doc.find("font-weight=\"bold\"") != std::string::npos);
     // An independent parser: Python's xml.etree counts svg, title, background, g, title,
     // rect, line, circle, 2 paths and text.
