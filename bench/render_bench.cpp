@@ -32,12 +32,24 @@ void render_model(benchmark::State& state, terzo::Model model, int partials) {
         benchmark::Counter(s.seconds * double(state.iterations()), benchmark::Counter::kIsRate);
 }
 
-void none_8(benchmark::State& st) { render_model(st, terzo::Model::none, 8); }
-void poly_8(benchmark::State& st) { render_model(st, terzo::Model::poly, 8); }
-void oscillator_8(benchmark::State& st) { render_model(st, terzo::Model::oscillator, 8); }
-void predicted_8(benchmark::State& st) { render_model(st, terzo::Model::predicted, 8); }
-void poly_sine(benchmark::State& st) { render_model(st, terzo::Model::poly, 1); }
-void oscillator_sine(benchmark::State& st) { render_model(st, terzo::Model::oscillator, 1); }
+void none_8(benchmark::State& st) {
+    render_model(st, terzo::Model::none, 8);
+}
+void poly_8(benchmark::State& st) {
+    render_model(st, terzo::Model::poly, 8);
+}
+void oscillator_8(benchmark::State& st) {
+    render_model(st, terzo::Model::oscillator, 8);
+}
+void predicted_8(benchmark::State& st) {
+    render_model(st, terzo::Model::predicted, 8);
+}
+void poly_sine(benchmark::State& st) {
+    render_model(st, terzo::Model::poly, 1);
+}
+void oscillator_sine(benchmark::State& st) {
+    render_model(st, terzo::Model::oscillator, 1);
+}
 
 // Encoding the rendered second as a 16-bit WAV in memory (what --out adds besides the disk).
 void poly_8_and_wav(benchmark::State& state) {

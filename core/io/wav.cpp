@@ -6,6 +6,7 @@
 #include <sndfile.h>
 
 #include "core/error.hpp"
+#include "core/io/pcm.hpp"
 
 namespace terzo {
 
@@ -18,11 +19,15 @@ struct MemoryFile {
     sf_count_t pos = 0;
 };
 
-sf_count_t mem_length(void* user) { return sf_count_t(static_cast<MemoryFile*>(user)->bytes.size()); }
+sf_count_t mem_length(void* user) {
+    return sf_count_t(static_cast<MemoryFile*>(user)->bytes.size());
+}
 
 sf_count_t mem_seek(sf_count_t offset, int whence, void* user) {
     auto* m = static_cast<MemoryFile*>(user);
-    sf_count_t base = whence == SEEK_SET ? 0 : whence == SEEK_CUR ? m->pos : sf_count_t(m->bytes.size());
+    sf_count_t base = whence == SEEK_SET   ? 0
+                      : whence == SEEK_CUR ? m->pos
+                                           : sf_count_t(m->bytes.size());
     if (base + offset < 0) return -1;
     m->pos = base + offset;
     return m->pos;
@@ -45,7 +50,9 @@ sf_count_t mem_write(const void* ptr, sf_count_t count, void* user) {
     return count;
 }
 
-sf_count_t mem_tell(void* user) { return static_cast<MemoryFile*>(user)->pos; }
+sf_count_t mem_tell(void* user) {
+    return static_cast<MemoryFile*>(user)->pos;
+}
 
 } // namespace
 
@@ -59,29 +66,34 @@ std::string encode_wav(const std::vector<double>& samples, const WavFormat& form
     SF_INFO info{};
     info.samplerate = format.sample_rate;
     info.channels = 1;
-    info.format = SF_FORMAT_WAV |
-                  (format.sample_format == SampleFormat::int16 ? SF_FORMAT_PCM_16 : SF_FORMAT_FLOAT);
+    info.format = SF_FORMAT_WAV | (format.sample_format == SampleFormat::int16 ? SF_FORMAT_PCM_16
+                                                                               : SF_FORMAT_FLOAT);
     TERZO_ASSERT(sf_format_check(&info));
     SNDFILE* sf = sf_open_virtual(&io, SFM_WRITE, &info, &file);
     if (!sf) fail({"wav", 0, 0}, std::string("cannot encode: ") + sf_strerror(nullptr));
-    // Without clipping libsndfile wraps out-of-range values around to the opposite sign.
-    sf_command(sf, SFC_SET_CLIPPING, nullptr, SF_TRUE);
     // The float format's optional PEAK chunk carries a time stamp: leave it out so the same
     // render always gives the same bytes.
     sf_command(sf, SFC_SET_ADD_PEAK_CHUNK, nullptr, SF_FALSE);
-    const sf_count_t written = sf_write_double(sf, samples.data(), sf_count_t(samples.size()));
+    // 16-bit samples are converted here (to_pcm16 rounds to nearest; libsndfile's own
+    // conversion rounds down), float samples by libsndfile (a plain narrowing to float).
+    const sf_count_t written =
+        format.sample_format == SampleFormat::int16
+            ? sf_write_short(sf, to_pcm16(samples).data(), sf_count_t(samples.size()))
+            : sf_write_double(sf, samples.data(), sf_count_t(samples.size()));
     const std::string problem = written == sf_count_t(samples.size()) ? "" : sf_strerror(sf);
     const int closed = sf_close(sf);
     if (!problem.empty() || closed != 0)
-        fail({"wav", 0, 0}, "cannot encode: " + (problem.empty() ? sf_error_number(closed) : problem));
+        fail({"wav", 0, 0},
+             "cannot encode: " + (problem.empty() ? sf_error_number(closed) : problem));
     return std::move(file.bytes);
 }
 
 void write_wav(const std::filesystem::path& path, const std::vector<double>& samples,
                const WavFormat& format, Overwrite overwrite) {
     const std::string bytes = encode_wav(samples, format);
-    write_file_atomically(path, [&](std::ostream& out) { out.write(bytes.data(), std::streamsize(bytes.size())); },
-                          overwrite);
+    write_file_atomically(
+        path, [&](std::ostream& out) { out.write(bytes.data(), std::streamsize(bytes.size())); },
+        overwrite);
 }
 
 } // namespace terzo

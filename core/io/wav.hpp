@@ -22,8 +22,7 @@ struct WavFormat {
 std::string sample_format_name(SampleFormat f);
 
 /// The bytes of a mono WAV file holding the samples. Full scale is +-1; int16 samples are
-/// x * 32768 rounded to the nearest integer and clipped to -32768..32767 (libsndfile's
-/// clipping conversion), float32 samples are stored as they are.
+/// to_pcm16(x) (core/io/pcm.hpp), float32 samples are x rounded to float.
 std::string encode_wav(const std::vector<double>& samples, const WavFormat& format);
 /// Writes the samples as a WAV file through write_file_atomically; throws InputError.
 void write_wav(const std::filesystem::path& path, const std::vector<double>& samples,

@@ -16,13 +16,16 @@ double ramp_gain(double u) {
 void apply_envelope(std::vector<double>& samples, const Envelope& envelope, double sample_rate) {
     const std::size_t n = samples.size();
     auto ramp_frames = [&](double seconds) {
-        return std::min<std::size_t>(n, static_cast<std::size_t>(std::llround(seconds * sample_rate)));
+        return std::min<std::size_t>(n,
+                                     static_cast<std::size_t>(std::llround(seconds * sample_rate)));
     };
     const std::size_t a = ramp_frames(envelope.attack_s), r = ramp_frames(envelope.release_s);
     // Sample i of an a-frame ramp sits at u = i / a, so the first sample is exactly silent.
-    for (std::size_t i = 0; i < a; ++i) samples[i] *= ramp_gain(double(i) / double(a));
+    for (std::size_t i = 0; i < a; ++i)
+        samples[i] *= ramp_gain(double(i) / double(a));
     // The release mirrors the attack: the last sample is exactly silent.
-    for (std::size_t i = 0; i < r; ++i) samples[n - 1 - i] *= ramp_gain(double(i) / double(r));
+    for (std::size_t i = 0; i < r; ++i)
+        samples[n - 1 - i] *= ramp_gain(double(i) / double(r));
 }
 
 } // namespace terzo

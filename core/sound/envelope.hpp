@@ -8,8 +8,8 @@ namespace terzo {
 
 /// Ramp lengths in seconds; the level holds at 1 between them.
 struct Envelope {
-    double attack_s = 0.05;  ///< fade-in from silence at the start
-    double release_s = 0.2;  ///< fade-out to silence at the end
+    double attack_s = 0.05; ///< fade-in from silence at the start
+    double release_s = 0.2; ///< fade-out to silence at the end
 };
 
 /// Gain of a raised-cosine ramp at fraction u of its length: 0 at u <= 0, 1 at u >= 1.

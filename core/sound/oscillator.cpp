@@ -43,7 +43,8 @@ std::vector<double> drive_oscillator(const std::vector<double>& input, const Osc
         for (int it = 0; it < 8; ++it) {
             const double V = 2.0 * (X - x) / h - v;
             const double g = V - v - 0.5 * h * (a + accel(X, V, u1));
-            const double dg = 2.0 / h + gamma + 0.5 * h * w0sq * (1.0 + X * (2.0 * osc.c2 + 3.0 * osc.c3 * X));
+            const double dg =
+                2.0 / h + gamma + 0.5 * h * w0sq * (1.0 + X * (2.0 * osc.c2 + 3.0 * osc.c3 * X));
             const double dx = g / dg;
             X -= dx;
             if (std::abs(dx) <= 1e-14 * (1.0 + std::abs(X))) break;

@@ -3,7 +3,8 @@
 namespace terzo {
 
 void apply_polynomial(std::vector<double>& samples, const Polynomial& p) {
-    for (double& x : samples) x = polynomial_output(p, x);
+    for (double& x : samples)
+        x = polynomial_output(p, x);
 }
 
 } // namespace terzo

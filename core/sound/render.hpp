@@ -39,10 +39,10 @@ struct RenderSettings {
     Model model = Model::poly;
     Polynomial polynomial;
     Oscillator oscillator;
-    double peak_dbfs = -12.0;     ///< the render's peak level
+    double peak_dbfs = -12.0; ///< the render's peak level
     /// predicted: each tone's level relative to one note, before the audibility weight
     double predicted_db = -20.0;
-    int predicted_order = 3;      ///< predicted: highest order |a| + |b| of the tones added
+    int predicted_order = 3; ///< predicted: highest order |a| + |b| of the tones added
 };
 
 /// Limits, each enforced by check_render_settings (and tested).
@@ -77,7 +77,8 @@ const char* hearing_caution();
 void check_render_settings(const RenderSettings& s, std::size_t note_count);
 /// Frequency of each note: degree n of the scale, n >= size() continuing into the next
 /// periods and negative n into the ones below, with degree 0 at ref_hz.
-std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>& notes, double ref_hz);
+std::vector<double> note_frequencies(const Scale& scale, const std::vector<int>& notes,
+                                     double ref_hz);
 /// The predicted combination tones of every pair of the notes (pure tones, orders
 /// 2..s.predicted_order, from the resultant engine) as sine partials: each at
 /// note_amplitude * 10^(predicted_db / 20) * the engine's audibility estimate, those outside
@@ -87,6 +88,7 @@ std::vector<Partial> predicted_partials(const Scale& scale, const std::vector<in
                                         const RenderSettings& s, double note_amplitude);
 /// The rendered mono samples, peaking at s.peak_dbfs. Throws InputError (source "--notes")
 /// for a note outside 20 Hz .. highest_partial_hz, and whatever check_render_settings throws.
-std::vector<double> render(const Scale& scale, const std::vector<int>& notes, const RenderSettings& s);
+std::vector<double> render(const Scale& scale, const std::vector<int>& notes,
+                           const RenderSettings& s);
 
 } // namespace terzo

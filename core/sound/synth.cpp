@@ -21,8 +21,9 @@ std::vector<Partial> harmonic_partials(const std::vector<double>& fundamentals_h
 // out in real arithmetic (std::complex's operator* checks for infinities and NaN through a
 // library call), instead of a cosine call. Rounding makes a running phasor drift in phase
 // and length, so at the start of every block of `block` samples it is set again from the
-// exact phase, computed from the whole number of cycles modulo 1; the drift inside a block
-// stays near 1e-13 of the amplitude, far below the -80 dB the spectrum tests look for.
+// exact phase, computed from the whole number of cycles modulo 1. Against long-double
+// cosines the error stays below 1e-9 of the amplitude (measured: 2e-10 at 8 kHz after 60 s,
+// mostly the rounding of that phase), far below the -80 dB the spectrum tests look for.
 // Partials go through a block in groups of `lanes`, whose independent multiplications the
 // processor can overlap.
 std::vector<double> synthesize(const std::vector<Partial>& partials, std::size_t frames,

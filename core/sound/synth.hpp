@@ -15,8 +15,8 @@ struct Partial {
 
 /// The sound of one note: its fundamental and harmonics 2..partials above it.
 struct Timbre {
-    int partials = 1;                    ///< 1 is a pure sine
-    double rolloff_db_per_octave = 6.0;  ///< level of harmonic n is -rolloff * log2(n) dB
+    int partials = 1;                   ///< 1 is a pure sine
+    double rolloff_db_per_octave = 6.0; ///< level of harmonic n is -rolloff * log2(n) dB
 };
 
 /// Amplitude of harmonic n (1 = fundamental) relative to the fundamental.

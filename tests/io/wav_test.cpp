@@ -36,13 +36,15 @@ std::string run(const std::string& command, const fs::path& out_file) {
     std::stringstream s;
     s << in.rdbuf();
     std::string text = s.str();
-    while (!text.empty() && (text.back() == '\n' || text.back() == ' ')) text.pop_back();
+    while (!text.empty() && (text.back() == '\n' || text.back() == ' '))
+        text.pop_back();
     return text;
 }
 
 std::vector<double> test_signal(std::size_t n) {
     std::vector<double> x(n);
-    for (std::size_t i = 0; i < n; ++i) x[i] = 0.5 * std::sin(2 * M_PI * 440.0 * double(i) / 44100.0);
+    for (std::size_t i = 0; i < n; ++i)
+        x[i] = 0.5 * std::sin(2 * M_PI * 440.0 * double(i) / 44100.0);
     return x;
 }
 
@@ -53,20 +55,23 @@ TEST_CASE("a 16-bit WAV file reads back in Python's wave module with the same he
     TempDir dir;
     const fs::path file = dir.path / "tone.wav";
     std::vector<double> x = test_signal(1000);
-    x[1] = 1.5;   // clipped to the largest value
-    x[2] = -1.5;  // clipped to the smallest value
+    x[1] = 1.5;  // clipped to the largest value
+    x[2] = -1.5; // clipped to the smallest value
     x[3] = 0.25;
     write_wav(file, x, WavFormat{44100, SampleFormat::int16});
-    const std::string py =
-        "import wave, struct\n"
-        "w = wave.open('" + file.string() + "', 'rb')\n"
-        "n = w.getnframes()\n"
-        "s = struct.unpack('<%dh' % n, w.readframes(n))\n"
-        "print(w.getnchannels(), w.getsampwidth(), w.getframerate(), n, w.getcomptype(), s[0], s[1], s[2], s[3], s[10])\n";
+    const std::string py = "import wave, struct\n"
+                           "w = wave.open('" +
+                           file.string() +
+                           "', 'rb')\n"
+                           "n = w.getnframes()\n"
+                           "s = struct.unpack('<%dh' % n, w.readframes(n))\n"
+                           "print(w.getnchannels(), w.getsampwidth(), w.getframerate(), n, "
+                           "w.getcomptype(), s[0], s[1], s[2], s[3], s[10])\n";
     std::ofstream(dir.path / "read.py") << py;
-    const std::string got = run("python3 '" + (dir.path / "read.py").string() + "'", dir.path / "out.txt");
-    // Expected sample values: libsndfile scales +-1 to the 16-bit range and rounds; 0.25
-    // becomes 8192 (0.25 * 32768) and clipping pins +-1.5 to 32767 and -32768.
+    const std::string got =
+        run("python3 '" + (dir.path / "read.py").string() + "'", dir.path / "out.txt");
+    // Expected sample values: x * 32768 rounded to nearest (not at a half here, so lround
+    // agrees); 0.25 becomes 8192 and clipping pins +-1.5 to 32767 and -32768.
     const long s10 = std::lround(0.5 * std::sin(2 * M_PI * 440.0 * 10 / 44100.0) * 32768.0);
     CHECK(got == "1 2 44100 1000 NONE 0 32767 -32768 8192 " + std::to_string(s10));
 }
@@ -76,7 +81,8 @@ TEST_CASE("a float WAV file reads back in sox with the same header", "[wav]") {
     const fs::path file = dir.path / "tone.wav";
     write_wav(file, test_signal(4800), WavFormat{48000, SampleFormat::float32});
     const auto field = [&](const char* flag) {
-        return run(std::string("sox --i ") + flag + " '" + file.string() + "'", dir.path / "out.txt");
+        return run(std::string("sox --i ") + flag + " '" + file.string() + "'",
+                   dir.path / "out.txt");
     };
     CHECK(field("-c") == "1");
     CHECK(field("-r") == "48000");

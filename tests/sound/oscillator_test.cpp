@@ -26,21 +26,24 @@ namespace {
 // terzo's form x'' + gamma x' + w0^2 (x + c2 x^2) = w0^2 u has f_i = w0^2 A_i, alpha = w0^2 c2.
 struct Theory {
     double w0, gamma, alpha;
-    double response(double w) const { return 1.0 / std::abs(std::complex<double>(w0 * w0 - w * w, gamma * w)); }
+    double response(double w) const {
+        return 1.0 / std::abs(std::complex<double>(w0 * w0 - w * w, gamma * w));
+    }
 };
 
 // Drives the oscillator with A1 cos(2 pi f1 t) + A2 cos(2 pi f2 t) (whole hertz) for 1.5 s
-// at sample rate fs and returns the spectrum of the last second: by then the start-up transient has decayed
-// (by exp(-gamma t / 2), under 1e-100 here) and the response is periodic in one second, so
+// at sample rate fs and returns the spectrum of the last second: by then the start-up transient has
+// decayed (by exp(-gamma t / 2), under 1e-100 here) and the response is periodic in one second, so
 // every line sits on a bin of the rectangular window.
-terzo::test::Spectrum steady_spectrum(const Oscillator& osc, double f1, double A1, double f2, double A2,
-                                      int fs = 48000) {
+terzo::test::Spectrum steady_spectrum(const Oscillator& osc, double f1, double A1, double f2,
+                                      double A2, int fs = 48000) {
     const std::vector<double> u = synthesize({{f1, A1}, {f2, A2}}, std::size_t(1.5 * fs), fs);
     const std::vector<double> x = drive_oscillator(u, osc, fs);
     return terzo::test::amplitude_spectrum(std::vector<double>(x.begin() + fs / 2, x.end()), fs);
 }
 
-void check_against_theory(const Oscillator& osc, double f1, double A1, double f2, double A2, int fs = 48000) {
+void check_against_theory(const Oscillator& osc, double f1, double A1, double f2, double A2,
+                          int fs = 48000) {
     const double w0 = 2 * M_PI * osc.resonance_hz;
     const Theory t{w0, w0 / osc.q, w0 * w0 * osc.c2};
     const auto s = steady_spectrum(osc, f1, A1, f2, A2, fs);
@@ -85,7 +88,8 @@ TEST_CASE("without nonlinear terms the oscillator adds no combination tones", "[
     CHECK(s.at(300) < 1e-12);
 }
 
-TEST_CASE("the cubic term of the oscillator makes the cubic difference tone 2 f1 - f2", "[oscillator]") {
+TEST_CASE("the cubic term of the oscillator makes the cubic difference tone 2 f1 - f2",
+          "[oscillator]") {
     // 400 and 510 Hz: an odd nonlinearity makes only terms a f1 + b f2 with a + b odd, and
     // the lowest such term on 110 Hz = f2 - f1 has order 89 (-52 f1 + 41 f2), so nothing
     // measurable may appear there, while 2 f1 - f2 = 290 Hz is a third-order term.
@@ -104,11 +108,12 @@ TEST_CASE("the oscillator starts at rest and follows a slow input with gain 1", 
 TEST_CASE("a drive past the quadratic model's barrier is reported, not written", "[oscillator]") {
     // x + x^2 = u has no solution for u < -1/4: the potential has no minimum to settle in.
     std::vector<double> u(4800, -0.5);
-    REQUIRE_THROWS_MATCHES(drive_oscillator(u, Oscillator{2000, 0.7, 1.0, 0}, 48000), InputError,
-                           Catch::Matchers::Message(
-                               "--model: error: the oscillator model diverged at 0.001 s; use a smaller "
-                               "quadratic coefficient c2 or a larger cubic coefficient c3 (c2^2 <= 3 c3 "
-                               "never diverges)"));
+    REQUIRE_THROWS_MATCHES(
+        drive_oscillator(u, Oscillator{2000, 0.7, 1.0, 0}, 48000), InputError,
+        Catch::Matchers::Message(
+            "--model: error: the oscillator model diverged at 0.001 s; use a smaller "
+            "quadratic coefficient c2 or a larger cubic coefficient c3 (c2^2 <= 3 c3 "
+            "never diverges)"));
 }
 
 TEST_CASE("the default oscillator stays bounded at full drive at every allowed Q", "[oscillator]") {

@@ -28,21 +28,33 @@ namespace {
 //       + 3/4 A1^2 A2 [cos(2a - b) + cos(2a + b)] + 3/4 A1 A2^2 [cos(2b - a) + cos(2b + a)]
 // Every term is a cosine with zero phase, so terms landing on the same frequency add, and
 // cos(-t) = cos t folds negative frequencies onto positive ones.
-std::map<double, double> expected_lines(double f1, double f2, double A1, double A2, const Polynomial& p) {
-    struct Term { int a, b; double coef; };
+std::map<double, double> expected_lines(double f1, double f2, double A1, double A2,
+                                        const Polynomial& p) {
+    struct Term {
+        int a, b;
+        double coef;
+    };
     const double c2 = p.c2, c3 = p.c3;
     const Term terms[] = {
-        {1, 0, A1}, {0, 1, A2},
-        {0, 0, c2 * (A1 * A1 + A2 * A2) / 2}, {2, 0, c2 * A1 * A1 / 2}, {0, 2, c2 * A2 * A2 / 2},
-        {-1, 1, c2 * A1 * A2}, {1, 1, c2 * A1 * A2},
+        {1, 0, A1},
+        {0, 1, A2},
+        {0, 0, c2 * (A1 * A1 + A2 * A2) / 2},
+        {2, 0, c2 * A1 * A1 / 2},
+        {0, 2, c2 * A2 * A2 / 2},
+        {-1, 1, c2 * A1 * A2},
+        {1, 1, c2 * A1 * A2},
         {1, 0, c3 * (0.75 * A1 * A1 * A1 + 1.5 * A1 * A2 * A2)},
         {0, 1, c3 * (0.75 * A2 * A2 * A2 + 1.5 * A1 * A1 * A2)},
-        {3, 0, c3 * A1 * A1 * A1 / 4}, {0, 3, c3 * A2 * A2 * A2 / 4},
-        {2, -1, 0.75 * c3 * A1 * A1 * A2}, {2, 1, 0.75 * c3 * A1 * A1 * A2},
-        {-1, 2, 0.75 * c3 * A1 * A2 * A2}, {1, 2, 0.75 * c3 * A1 * A2 * A2},
+        {3, 0, c3 * A1 * A1 * A1 / 4},
+        {0, 3, c3 * A2 * A2 * A2 / 4},
+        {2, -1, 0.75 * c3 * A1 * A1 * A2},
+        {2, 1, 0.75 * c3 * A1 * A1 * A2},
+        {-1, 2, 0.75 * c3 * A1 * A2 * A2},
+        {1, 2, 0.75 * c3 * A1 * A2 * A2},
     };
     std::map<double, double> lines;
-    for (const Term& t : terms) lines[std::abs(t.a * f1 + t.b * f2)] += t.coef;
+    for (const Term& t : terms)
+        lines[std::abs(t.a * f1 + t.b * f2)] += t.coef;
     return lines;
 }
 
@@ -58,7 +70,8 @@ void check_exact_bins(double f1, double f2, double A1, double A2, const Polynomi
     const auto s = terzo::test::amplitude_spectrum(x, fs);
     const auto lines = expected_lines(f1, f2, A1, A2, p);
     double strongest = 0;
-    for (auto [f, a] : lines) strongest = std::max(strongest, std::abs(a));
+    for (auto [f, a] : lines)
+        strongest = std::max(strongest, std::abs(a));
     for (auto [f, a] : lines) {
         INFO("line at " << f << " Hz: expected " << a << ", measured " << s.at(f));
         CHECK(std::abs(db(s.at(f) / std::abs(a))) <= 0.5);
@@ -77,7 +90,9 @@ TEST_CASE("the polynomial model puts every combination term up to order 3 at its
     SECTION("a major third 440 + 550 Hz, unequal amplitudes, no two terms on one frequency") {
         check_exact_bins(440, 550, 0.5, 0.3, Polynomial{0.2, 0.3});
     }
-    SECTION("negative coefficients") { check_exact_bins(440, 550, 0.4, 0.4, Polynomial{-0.3, -0.1}); }
+    SECTION("negative coefficients") {
+        check_exact_bins(440, 550, 0.4, 0.4, Polynomial{-0.3, -0.1});
+    }
     SECTION("a fifth 200 + 300 Hz, where f2-f1 = 2f1-f2, 2f1 = 2f2-f1 and 2f2 = 3f1 add up") {
         check_exact_bins(200, 300, 0.45, 0.35, Polynomial{0.25, 0.2});
         // The fold-together is what is being tested: 100 Hz holds a quadratic and a cubic term.
@@ -87,7 +102,8 @@ TEST_CASE("the polynomial model puts every combination term up to order 3 at its
 }
 
 TEST_CASE("a rendered just major third through the polynomial has peaks exactly at the combination "
-          "frequencies and nothing else above -80 dB", "[polynomial]") {
+          "frequencies and nothing else above -80 dB",
+          "[polynomial]") {
     // Frequencies off the FFT bins, rendered by the whole chain (notes, envelopes, peak cap).
     // A 4-term Blackman-Harris window keeps leakage below -92 dB outside +-4 bins of each line,
     // and zero-padding by 8 leaves at most 1/16 bin between a line and the nearest analysed
@@ -101,7 +117,8 @@ TEST_CASE("a rendered just major third through the polynomial has peaks exactly 
     const std::vector<double> y = render(third, {0, 1}, s);
     const std::size_t n = 65536, start = 14400; // from 0.3 s, inside the steady part
     std::vector<double> seg(y.begin() + start, y.begin() + start + n);
-    const auto spec = terzo::test::amplitude_spectrum(seg, s.sample_rate, terzo::test::blackman_harris(n), 8);
+    const auto spec =
+        terzo::test::amplitude_spectrum(seg, s.sample_rate, terzo::test::blackman_harris(n), 8);
 
     // Each note enters the model at amplitude 1/2 (two notes, pure sines).
     const double f1 = 300.7, f2 = 300.7 * 1.25;
@@ -122,13 +139,14 @@ TEST_CASE("a rendered just major third through the polynomial has peaks exactly 
         const std::size_t k = peak_near(f, bin);
         INFO("line at " << f << " Hz, peak found at " << double(k) * spec.bin_hz << " Hz");
         CHECK(std::abs(double(k) * spec.bin_hz - f) <= spec.bin_hz);
-        CHECK(std::abs(db((spec.amplitude[k] / ref_measured) / (std::abs(a) / ref_expected))) <= 0.5);
+        CHECK(std::abs(db((spec.amplitude[k] / ref_measured) / (std::abs(a) / ref_expected))) <=
+              0.5);
     }
     double worst = 0, worst_hz = 0;
     for (std::size_t k = 0; k < spec.amplitude.size(); ++k) {
         const double f = double(k) * spec.bin_hz;
-        const bool near_line = std::any_of(lines.begin(), lines.end(),
-                                           [&](auto& l) { return std::abs(f - l.first) <= 5 * bin; });
+        const bool near_line = std::any_of(
+            lines.begin(), lines.end(), [&](auto& l) { return std::abs(f - l.first) <= 5 * bin; });
         if (!near_line && spec.amplitude[k] > worst) worst = spec.amplitude[k], worst_hz = f;
     }
     INFO("strongest elsewhere: " << db(worst / ref_measured) << " dB at " << worst_hz << " Hz");
@@ -136,7 +154,8 @@ TEST_CASE("a rendered just major third through the polynomial has peaks exactly 
 }
 
 TEST_CASE("the default coefficients put the resultants of two equal tones about 21 and 26 dB "
-          "below the tones", "[polynomial]") {
+          "below the tones",
+          "[polynomial]") {
     const double fs = 48000;
     std::vector<double> x = synthesize({{400, 0.5}, {500, 0.5}}, 48000, fs);
     apply_polynomial(x, Polynomial{});

@@ -26,7 +26,8 @@ inline std::vector<double> blackman_harris(std::size_t n) {
     std::vector<double> w(n);
     for (std::size_t i = 0; i < n; ++i) {
         const double t = 2.0 * M_PI * double(i) / double(n);
-        w[i] = 0.35875 - 0.48829 * std::cos(t) + 0.14128 * std::cos(2 * t) - 0.01168 * std::cos(3 * t);
+        w[i] =
+            0.35875 - 0.48829 * std::cos(t) + 0.14128 * std::cos(2 * t) - 0.01168 * std::cos(3 * t);
     }
     return w;
 }
@@ -43,8 +44,8 @@ inline Spectrum amplitude_spectrum(const std::vector<double>& x, double sample_r
         wsum += wi;
     }
     std::vector<std::complex<double>> out(m / 2 + 1);
-    fftw_plan plan = fftw_plan_dft_r2c_1d(int(m), in.data(),
-                                          reinterpret_cast<fftw_complex*>(out.data()), FFTW_ESTIMATE);
+    fftw_plan plan = fftw_plan_dft_r2c_1d(
+        int(m), in.data(), reinterpret_cast<fftw_complex*>(out.data()), FFTW_ESTIMATE);
     fftw_execute(plan);
     fftw_destroy_plan(plan);
     Spectrum s;
@@ -55,6 +56,8 @@ inline Spectrum amplitude_spectrum(const std::vector<double>& x, double sample_r
     return s;
 }
 
-inline double db(double ratio) { return 20.0 * std::log10(ratio); }
+inline double db(double ratio) {
+    return 20.0 * std::log10(ratio);
+}
 
 } // namespace terzo::test
