@@ -62,6 +62,7 @@ void switch_tuning(App& app, int i) {
     app.session.current = app.session.tunings.empty() ? 0 : std::clamp<int>(i, 0, int(app.session.tunings.size()) - 1);
     // A selection names notes of one keyboard; it does not carry over to another tuning.
     app.session.selection.clear();
+    app.camera.fit = true;
     touch(app);
 }
 

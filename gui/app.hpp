@@ -61,6 +61,7 @@ struct BackgroundFit {
 /// Pan and zoom of the lattice view.
 struct LatticeCamera {
     float pan_x = 0.0f, pan_y = 0.0f, zoom = 1.0f;
+    bool fit = true; ///< frame the degrees at the next draw (new tuning, Home)
 };
 
 class Player;

@@ -45,10 +45,10 @@ ImU32 deviation_colour(double abs_cents, bool exact, double tolerance) {
 float draw_deviation_legend(ImDrawList* dl, ImVec2 pos, double tolerance, bool with_symbols) {
     Stop s[5];
     stops(tolerance, s);
-    const float w = 260.0f, h = 12.0f, line = ImGui::GetTextLineHeight();
+    const float w = 190.0f, h = 12.0f, line = ImGui::GetTextLineHeight();
     const ImU32 text = IM_COL32(220, 220, 225, 255);
-    dl->AddRectFilled(ImVec2(pos.x - 6, pos.y - 4), ImVec2(pos.x + w + 80, pos.y + line * (with_symbols ? 4.6f : 3.4f)), IM_COL32(10, 12, 16, 210), 4.0f);
-    dl->AddText(pos, text, "landing deviation from the nearest note");
+    dl->AddRectFilled(ImVec2(pos.x - 6, pos.y - 4), ImVec2(pos.x + w + 92, pos.y + line * (with_symbols ? 5.6f : 3.4f)), IM_COL32(10, 12, 16, 210), 4.0f);
+    dl->AddText(pos, text, "resultants: landing deviation");
     float y = pos.y + line + 2;
     // Exact swatch, then the gradient drawn as thin strips.
     dl->AddRectFilled(ImVec2(pos.x, y), ImVec2(pos.x + 40, y + h), exact_colour);
@@ -66,8 +66,9 @@ float draw_deviation_legend(ImDrawList* dl, ImVec2 pos, double tolerance, bool w
     }
     float bottom = y + h + line + 2;
     if (with_symbols) {
-        dl->AddText(ImVec2(pos.x, bottom), text, "\xe2\x96\xb2 sharp   \xe2\x96\xbc flat   \xe2\x97\x86 within tolerance");
-        bottom += line;
+        dl->AddText(ImVec2(pos.x, bottom), text, "\xe2\x96\xb2 sharp  \xe2\x96\xbc flat  \xe2\x97\x86 within tolerance");
+        dl->AddText(ImVec2(pos.x, bottom + line), text, "marks sit at each resultant's own ratio");
+        bottom += 2 * line;
     }
     return bottom - pos.y;
 }

@@ -134,7 +134,7 @@ void shortcuts(App& app) {
     if (ImGui::IsKeyPressed(sf::Keyboard::Right)) c.pan_x -= 40;
     if (ImGui::IsKeyPressed(sf::Keyboard::Up)) c.pan_y += 40;
     if (ImGui::IsKeyPressed(sf::Keyboard::Down)) c.pan_y -= 40;
-    if (pressed(sf::Keyboard::Home)) c = LatticeCamera{};
+    if (pressed(sf::Keyboard::Home)) c = LatticeCamera{}; // fit = true: frame the degrees
 }
 
 void menu_bar(App& app) {

@@ -15,7 +15,9 @@ namespace {
 
 // Screen offset of lattice point (e3, e5, e7) at zoom 1.
 ImVec2 lattice_offset(const std::array<int, 3>& e) {
-    return ImVec2(e[0] * 120.0f + e[2] * 62.0f, -e[1] * 104.0f - e[2] * 40.0f);
+    // 7 goes steeply up and right, chosen so that no small combination of steps (such as
+    // 3 * 5 / 7^2) lands within a node's diameter of the origin.
+    return ImVec2(e[0] * 120.0f + e[2] * 36.0f, -e[1] * 104.0f - e[2] * 70.0f);
 }
 
 std::string exponent_text(const std::array<int, 3>& e) {
@@ -81,11 +83,6 @@ void draw_lattice_view(App& app) {
     const ImVec2 p1(p0.x + size.x, p0.y + size.y);
     dl->PushClipRect(p0, p1, true);
     dl->AddRectFilled(p0, p1, canvas_colour);
-    const ImVec2 origin(p0.x + size.x * 0.5f + cam.pan_x, p0.y + size.y * 0.5f + cam.pan_y);
-    auto at = [&](const std::array<int, 3>& e) {
-        ImVec2 o = lattice_offset(e);
-        return ImVec2(origin.x + o.x * cam.zoom, origin.y + o.y * cam.zoom);
-    };
     const SessionTuning* tuning = current_tuning(app);
     const Analysis& a = app.analysis;
     if (!tuning || !a.keyboard) {
@@ -95,6 +92,40 @@ void draw_lattice_view(App& app) {
     }
     const Keyboard& kb = *a.keyboard;
     const double tol = app.session.settings.landing_tolerance_cents;
+    const auto& places = a.degree_places;
+
+    // Framing: the placed degrees fit between the legend and the bottom, never above zoom 1.
+    if (cam.fit) {
+        cam.fit = false;
+        float x0 = 0, x1 = 0, y0 = 0, y1 = 0;
+        bool off_row = false;
+        for (const LatticePlace& pl : places) {
+            if (pl.how == LatticeHow::none) {
+                off_row = true;
+                continue;
+            }
+            ImVec2 o = lattice_offset(pl.exponents);
+            x0 = std::min(x0, o.x), x1 = std::max(x1, o.x), y0 = std::min(y0, o.y), y1 = std::max(y1, o.y);
+        }
+        const float top = 130.0f, bottom = off_row ? 150.0f : 60.0f, side = 60.0f;
+        float zx = (size.x - 2 * side) / std::max(1.0f, x1 - x0), zy = (size.y - top - bottom) / std::max(1.0f, y1 - y0);
+        cam.zoom = std::clamp(std::min(zx, zy), 0.3f, 1.0f);
+        // Pan so the bounds' centre sits at the centre of the free area.
+        float cx = (x0 + x1) * 0.5f * cam.zoom, cy = (y0 + y1) * 0.5f * cam.zoom;
+        cam.pan_x = -cx;
+        cam.pan_y = (top - bottom) * 0.5f - cy;
+        // Keep the origin exactly where it was when everything already fits at zoom 1 around it.
+        if (cam.zoom == 1.0f && -x0 <= size.x * 0.5f - side && x1 <= size.x * 0.5f - side &&
+            -y0 <= size.y * 0.5f - top && y1 <= size.y * 0.5f - bottom) {
+            cam.pan_x = 0;
+            cam.pan_y = 0;
+        }
+    }
+    const ImVec2 origin(p0.x + size.x * 0.5f + cam.pan_x, p0.y + size.y * 0.5f + cam.pan_y);
+    auto at = [&](const std::array<int, 3>& e) {
+        ImVec2 o = lattice_offset(e);
+        return ImVec2(origin.x + o.x * cam.zoom, origin.y + o.y * cam.zoom);
+    };
 
     // Faint lattice points around the origin show the grid the degrees sit on.
     for (int e3 = -6; e3 <= 6; ++e3)
@@ -102,7 +133,6 @@ void draw_lattice_view(App& app) {
 
     // Edges: one step of 3, 5 or 7 between two placed degrees.
     const ImU32 edge_col[3] = {IM_COL32(95, 110, 140, 255), IM_COL32(90, 140, 110, 255), IM_COL32(140, 100, 150, 255)};
-    const auto& places = a.degree_places;
     for (std::size_t i = 0; i < places.size(); ++i) {
         for (std::size_t j = i + 1; j < places.size(); ++j) {
             if (places[i].how == LatticeHow::none || places[j].how == LatticeHow::none) continue;
@@ -123,7 +153,8 @@ void draw_lattice_view(App& app) {
     const int n = static_cast<int>(kb.scale().size());
     for (int note : app.session.selection) selected_degrees[static_cast<std::size_t>(note % n)] = 1;
     int hovered_degree = -1;
-    float off_x = p0.x + 20;
+    const float off_x = p0.x + 20;
+    int off_count = 0;
     struct Label {
         ImVec2 centre;
         std::string text;
@@ -133,8 +164,10 @@ void draw_lattice_view(App& app) {
         const LatticePlace& pl = places[static_cast<std::size_t>(i)];
         ImVec2 c;
         if (pl.how == LatticeHow::none) {
-            c = ImVec2(off_x + r, p1.y - r - 36);
-            off_x += 2 * r + 12;
+            // The row of degrees off the lattice wraps upwards when it fills the width.
+            const int per_row = std::max(1, static_cast<int>((size.x - 40) / (2 * r + 12)));
+            const int k = off_count++;
+            c = ImVec2(off_x + r + (k % per_row) * (2 * r + 12), p1.y - r - 36 - (k / per_row) * (2 * r + 30));
         } else {
             int k = stacked[pl.exponents]++;
             c = at(pl.exponents);
@@ -147,12 +180,16 @@ void draw_lattice_view(App& app) {
         ImVec2 ts = ImGui::CalcTextSize(idx.c_str());
         dl->AddText(ImVec2(c.x - ts.x * 0.5f, c.y - ts.y * 0.5f), IM_COL32(255, 255, 255, 255), idx.c_str());
         const Pitch& p = kb.scale().degree(static_cast<std::size_t>(i));
-        labels.push_back({c, p.is_rational() ? p.str() : (pl.how == LatticeHow::none ? fixed(p.cents(), 1) + " c" : "\xe2\x89\x88" + pl.just.str())});
+        labels.push_back({c, p.is_rational() ? p.str() : (pl.how == LatticeHow::none ? fixed(p.cents(), 0) : "\xe2\x89\x88" + pl.just.str())});
         ImVec2 m = io.MousePos;
         if (hovered && (m.x - c.x) * (m.x - c.x) + (m.y - c.y) * (m.y - c.y) <= r * r) hovered_degree = i;
     }
-    if (std::any_of(places.begin(), places.end(), [](const LatticePlace& p) { return p.how == LatticeHow::none; }))
-        dl->AddText(ImVec2(p0.x + 20, p1.y - 2 * r - 62), IM_COL32(180, 180, 190, 255), "off the lattice (no 7-limit ratio within the lattice tolerance):");
+    if (off_count > 0) {
+        const int per_row = std::max(1, static_cast<int>((size.x - 40) / (2 * r + 12)));
+        const int rows = (off_count + per_row - 1) / per_row;
+        dl->AddText(ImVec2(p0.x + 20, p1.y - 2 * r - 62 - (rows - 1) * (2 * r + 30)), IM_COL32(180, 180, 190, 255),
+                    "off the lattice (no 7-limit ratio within the lattice tolerance):");
+    }
 
     // Resultant marks: on a ring around their lattice point, coloured by landing deviation.
     // The worst landings come first; a point shows at most 12 marks and counts the rest.
@@ -213,7 +250,7 @@ void draw_lattice_view(App& app) {
     // Legend and axis key.
     float lh = draw_deviation_legend(dl, ImVec2(p0.x + 14, p0.y + 12), tol, true);
     const ImU32 key_col = IM_COL32(200, 205, 215, 255);
-    float kx = p1.x - 250, ky = p1.y - ImGui::GetTextLineHeight() * 4.4f - 10;
+    float kx = p1.x - 232, ky = p0.y + 12;
     dl->AddRectFilled(ImVec2(kx - 8, ky - 4), ImVec2(p1.x - 6, ky + ImGui::GetTextLineHeight() * 4.2f), IM_COL32(10, 12, 16, 210), 4.0f);
     dl->AddText(ImVec2(kx, ky), key_col, "octave-equivalent lattice");
     dl->AddText(ImVec2(kx, ky + ImGui::GetTextLineHeight()), edge_col[0], "\xe2\x86\x92 \xc3\x97" "3/2 (fifth)");

@@ -38,15 +38,17 @@ def read_session():
 
 
 # Where the nodes are: the same window, fonts and layout as the interactive run, found in a
-# screenshot by the node colour. Degree 0 (1/1) is the node at the canvas centre and degree 4
-# (3/2) the one 120 pixels to its right (one step of 3 at zoom 1).
-subprocess.run([gui, "--fresh", "--screenshot", shot, tuning], check=True, timeout=60)
-nodes = g.blobs(g.read_png(shot), g.NODE)
-def nearest(x, y):
-    return min(nodes, key=lambda b: (b[0] - x) ** 2 + (b[1] - y) ** 2)
-n0 = nearest(630, 377)
-n4 = nearest(n0[0] + 120, n0[1])
-assert abs(n4[0] - n0[0] - 120) < 3 and abs(n4[1] - n0[1]) < 3, (n0, n4)
+# screenshot by colour. With degree 0 (1/1) selected it is the one node of the selected colour
+# in the lattice canvas; degree 4 (3/2) is the next node to its right on the same row (one
+# step of 3).
+subprocess.run([gui, "--fresh", "--select", "0", "--screenshot", shot, tuning], check=True, timeout=60)
+image = g.read_png(shot)
+selected = [b for b in g.blobs(image, g.NODE_SELECTED) if 330 < b[0] < 930 and b[1] < 700]
+assert len(selected) == 1, selected
+n0 = selected[0]
+right = [b for b in g.blobs(image, g.NODE) if abs(b[1] - n0[1]) < 3 and b[0] > n0[0]]
+assert right, "no node to the right of 1/1"
+n4 = min(right, key=lambda b: b[0])
 print("degree 0 at", n0[:2], "degree 4 at", n4[:2])
 
 proc = subprocess.Popen([gui, "--fresh", "--session", session, tuning])
