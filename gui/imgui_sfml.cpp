@@ -21,6 +21,7 @@ struct PlatformData {
     bool key_release[512] = {};
     bool key_release_next[512] = {};
     sf::Event::KeyEvent last_key{}; // modifiers as the last key event reported them
+    sf::Event::KeyEvent pressed_with{}; // modifiers held by any key press since the last frame
 };
 
 PlatformData& data(ImGuiIO& io) {
@@ -137,6 +138,12 @@ void platform_event(ImGuiIO& io, const sf::Event& event) {
         }
         set_modifiers(io, event.key);
         d.last_key = event.key;
+        if (event.type == sf::Event::KeyPressed) {
+            d.pressed_with.control |= event.key.control;
+            d.pressed_with.shift |= event.key.shift;
+            d.pressed_with.alt |= event.key.alt;
+            d.pressed_with.system |= event.key.system;
+        }
         break;
     }
     case sf::Event::TextEntered:
@@ -169,13 +176,17 @@ void platform_new_frame(ImGuiIO& io, sf::Vector2u display_size, float seconds) {
         d.key_release_next[k] = d.key_release[k];
         d.key_release[k] = d.key_fresh[k] = false;
     }
-    // A shortcut tapped within one frame (Ctrl down, S down, S up, Ctrl up) has already
-    // reported "no Ctrl" by now; the modifier keys' own (deferred) state keeps it for this frame.
+    // A shortcut tapped quickly (Ctrl down, S down, Ctrl up, S up) may have reported "no Ctrl"
+    // by now. Ctrl counts in this frame when the modifier key is still (deferred) down, when
+    // the last key event says so, or when any key was pressed with it since the last frame.
     auto down = [&](sf::Keyboard::Key k) { return io.KeysDown[k]; };
-    io.KeyCtrl = d.last_key.control || down(sf::Keyboard::LControl) || down(sf::Keyboard::RControl);
-    io.KeyShift = d.last_key.shift || down(sf::Keyboard::LShift) || down(sf::Keyboard::RShift);
-    io.KeyAlt = d.last_key.alt || down(sf::Keyboard::LAlt) || down(sf::Keyboard::RAlt);
-    io.KeySuper = d.last_key.system || down(sf::Keyboard::LSystem) || down(sf::Keyboard::RSystem);
+    const sf::Event::KeyEvent& l = d.last_key;
+    const sf::Event::KeyEvent& p = d.pressed_with;
+    io.KeyCtrl = l.control || p.control || down(sf::Keyboard::LControl) || down(sf::Keyboard::RControl);
+    io.KeyShift = l.shift || p.shift || down(sf::Keyboard::LShift) || down(sf::Keyboard::RShift);
+    io.KeyAlt = l.alt || p.alt || down(sf::Keyboard::LAlt) || down(sf::Keyboard::RAlt);
+    io.KeySuper = l.system || p.system || down(sf::Keyboard::LSystem) || down(sf::Keyboard::RSystem);
+    d.pressed_with = {};
     io.DisplaySize = ImVec2(static_cast<float>(display_size.x), static_cast<float>(display_size.y));
     io.DisplayFramebufferScale = ImVec2(1.0f, 1.0f);
     io.DeltaTime = seconds > 0.0f ? seconds : 1.0f / 60.0f; // ImGui asserts DeltaTime > 0

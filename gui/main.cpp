@@ -44,6 +44,7 @@ const char* usage =
     "  --bench-frames N      render N frames recomputing every view (keyboard of at least 88\n"
     "                        notes, order 5) and print milliseconds per frame\n"
     "  --force               let --screenshot replace an existing file\n"
+    "  --autosave-ms N       save the session N ms after the last change (default 1000)\n"
     "  --help                this text\n";
 
 struct Options {
@@ -51,6 +52,7 @@ struct Options {
     std::string session, view, screenshot, select;
     bool fresh = false, force = false;
     int bench_frames = 0;
+    int autosave_ms = 1000;
 };
 
 Options parse(int argc, char** argv) {
@@ -77,6 +79,12 @@ Options parse(int argc, char** argv) {
             long n = std::strtol(v.c_str(), &end, 10);
             if (v.empty() || *end || n < 1 || n > 100000) fail({a, 0, 0}, "\"" + v + "\" is not a frame count from 1 to 100000");
             o.bench_frames = static_cast<int>(n);
+        } else if (a == "--autosave-ms") {
+            std::string v = value();
+            char* end = nullptr;
+            long n = std::strtol(v.c_str(), &end, 10);
+            if (v.empty() || *end || n < 0 || n > 3600000) fail({a, 0, 0}, "\"" + v + "\" is not a delay from 0 to 3600000 ms");
+            o.autosave_ms = static_cast<int>(n);
         } else if (a == "--fresh") o.fresh = true;
         else if (a == "--force") o.force = true;
         else if (a.size() > 1 && a[0] == '-') fail({a, 0, 0}, "unknown option; see terzo-gui --help");
@@ -271,7 +279,7 @@ int main(int argc, char** argv) {
             app.lattice_png.clear();
         }
         window.display();
-        autosave(app, std::chrono::milliseconds(1000));
+        autosave(app, std::chrono::milliseconds(opt.autosave_ms));
 
         if (opt.bench_frames) {
             double ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();

@@ -68,7 +68,7 @@ def distinct_colours(image):
     return len({c for _, _, c in pixels(image)})
 
 
-def blobs(image, colour, min_size=200):
+def blobs(image, colour, min_size=80):
     """Centres (x, y) and sizes of 4-connected regions of exactly `colour`."""
     width, height = image[0], image[1]
     mask = {(x, y) for x, y, c in pixels(image) if c == colour}

@@ -205,6 +205,28 @@ TEST_CASE("a Ctrl shortcut tapped within one frame keeps Ctrl for that frame", "
     ImGui::Render();
 }
 
+TEST_CASE("Ctrl released in the frame of the key press still makes a shortcut", "[imgui_sfml]") {
+    Context c;
+    ImGuiIO& io = ImGui::GetIO();
+    char buf[32] = "";
+    run_frame(buf, sizeof buf);
+    platform_event(io, key(true, sf::Keyboard::LControl, false)); // X reports Ctrl after its own press
+    run_frame(buf, sizeof buf);
+    // Next frame: S down with Ctrl, Ctrl up, S up (the order a test driver produced).
+    platform_event(io, key(true, sf::Keyboard::S, true));
+    platform_event(io, key(false, sf::Keyboard::LControl, true));
+    platform_event(io, key(false, sf::Keyboard::S, false));
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK(io.KeyCtrl);
+    CHECK(ImGui::IsKeyPressed(sf::Keyboard::S, false));
+    ImGui::Render();
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK_FALSE(io.KeyCtrl);
+    ImGui::Render();
+}
+
 TEST_CASE("typed text reaches a focused text field, control characters do not", "[imgui_sfml]") {
     Context c;
     ImGuiIO& io = ImGui::GetIO();
