@@ -89,6 +89,7 @@ struct App {
     bool quit = false;
     std::string lattice_png;  ///< non-empty: save the lattice canvas to this path this frame
     bool lattice_png_force = false;
+    int lattice_png_delay = 0; ///< frames to wait so the closing file dialog is not in the image
     float lattice_rect[4] = {0, 0, 0, 0}; ///< x, y, w, h of the lattice canvas last frame
     bool benchmark = false;  ///< recompute every frame (--bench-frames)
 };

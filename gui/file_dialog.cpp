@@ -92,6 +92,7 @@ bool draw_file_dialog(FileDialog& d, std::filesystem::path& chosen) {
         if (entries.empty()) ImGui::TextDisabled("(no folders or %s files here)", d.extension.c_str());
         ImGui::EndChild();
         ImGui::SetNextItemWidth(-200);
+        if (ImGui::IsWindowAppearing()) ImGui::SetKeyboardFocusHere(); // Enter acts at once
         bool enter = ImGui::InputText("file name", &d.name, ImGuiInputTextFlags_EnterReturnsTrue);
         if (d.mode == FileDialog::Mode::save) {
             ImGui::SameLine();

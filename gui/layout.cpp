@@ -79,6 +79,7 @@ void dialog_chosen(App& app, const std::filesystem::path& path) {
             set_view(app, "lattice");
             app.lattice_png = path.string();
             app.lattice_png_force = d.replace;
+            app.lattice_png_delay = 2;
             break;
         case FileDialog::Purpose::export_sheet_svg: {
             if (!app.analysis.sheet) return;

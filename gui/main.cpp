@@ -250,7 +250,8 @@ int main(int argc, char** argv) {
 
         // The first stable frame: layout settled and the background fit in.
         const bool shoot = !opt.screenshot.empty() && frame >= screenshot_frame && !background_pending(app);
-        if (shoot || !app.lattice_png.empty()) {
+        const bool export_lattice = !app.lattice_png.empty() && app.lattice_png_delay-- <= 0;
+        if (shoot || export_lattice) {
             sf::Texture tex;
             tex.create(window.getSize().x, window.getSize().y);
             tex.update(window);
@@ -276,7 +277,7 @@ int main(int argc, char** argv) {
                 }
                 app.error = e.what();
             }
-            app.lattice_png.clear();
+            if (export_lattice) app.lattice_png.clear();
         }
         window.display();
         autosave(app, std::chrono::milliseconds(opt.autosave_ms));

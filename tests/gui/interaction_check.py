@@ -1,6 +1,7 @@
 """ctest (run inside xvfb-run): real mouse and keyboard input through xdotool. Opens the demo
 tuning, clicks the lattice nodes of degrees 0 (1/1) and 4 (3/2), presses 2 (dyad grid view) and
-Ctrl+S, and checks the saved session file; then Escape and Ctrl+Q, and checks again.
+Ctrl+S, and checks the saved session file; exports the lattice as PNG with Ctrl+P and Enter;
+then Escape and Ctrl+Q, and checks the session again.
 usage: interaction_check.py TERZO_GUI TUNING WORKDIR"""
 import json
 import os
@@ -52,7 +53,7 @@ n4 = min(right, key=lambda b: b[0])
 print("degree 0 at", n0[:2], "degree 4 at", n4[:2])
 
 # Autosave is pushed an hour away, so the session file is written only by Ctrl+S and on quit.
-proc = subprocess.Popen([gui, "--fresh", "--autosave-ms", "3600000", "--session", session, tuning])
+proc = subprocess.Popen([gui, "--fresh", "--autosave-ms", "3600000", "--session", session, tuning], cwd=work)
 try:
     wait_for(lambda: subprocess.run(["xdotool", "search", "--name", "^terzo$"], capture_output=True).returncode == 0, "the window")
     time.sleep(1.0)  # the first frames
@@ -75,6 +76,19 @@ try:
     assert s["selection"] == [0, 4], s["selection"]
     assert s["view"] == "grid"
     assert s["tunings"][0]["source"] == tuning
+    # Ctrl+P opens the export dialog in the working folder with a file name filled in; Enter
+    # saves the lattice canvas: the 6 unselected demo nodes, the dialog no longer in the way.
+    xdo("key", "1")
+    time.sleep(0.3)
+    xdo("key", "ctrl+p")
+    time.sleep(0.8)
+    xdo("key", "Return")
+    png = os.path.join(work, "demo-lattice.png")
+    wait_for(lambda: os.path.exists(png), "the lattice PNG")
+    lattice = g.read_png(png)
+    print("lattice export:", lattice[0], "x", lattice[1])
+    assert 500 < lattice[0] < 700 and 500 < lattice[1] < 700, lattice[:2]
+    assert len(g.blobs(lattice, g.NODE)) == 6
     xdo("key", "Escape")
     time.sleep(0.3)
     xdo("key", "ctrl+q")
@@ -82,7 +96,7 @@ try:
     s = read_session()
     print("after Escape and Ctrl+Q:", s["selection"], s["view"])
     assert s["selection"] == []
-    assert s["view"] == "grid"
+    assert s["view"] == "lattice"
 finally:
     if proc.poll() is None:
         proc.kill()
