@@ -57,7 +57,8 @@ void draw_grid_view(App& app) {
     }
     for (int i = 0; i < n; ++i) {
         std::string t = std::to_string(i);
-        if (cell >= 14 || i % 4 == 0) {
+        // Column labels need about 20 px for two digits; thin out when the cells are smaller.
+        if (cell >= 22 || i % (cell >= 11 ? 2 : 4) == 0) {
             dl->AddText(ImVec2(p0.x + 4, g0.y + i * cell + cell * 0.5f - 7), text, t.c_str());
             dl->AddText(ImVec2(g0.x + i * cell + cell * 0.5f - 4, p0.y + 10), text, t.c_str());
         }
