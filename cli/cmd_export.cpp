@@ -328,7 +328,7 @@ void add_export(CLI::App& app) {
     auto* cmd = app.add_subcommand("export", "Write a tuning for instruments: MIDI Tuning Standard "
                                              ".syx, a MIDI file, a frequency table, .scl");
     auto o = std::make_shared<ExportOptions>();
-    cmd->add_option("TUNING", o->tuning, "A .scl file")->required();
+    cmd->add_option("TUNING", o->tuning, tuning_help)->required();
     cmd->add_option("--scl", o->scl, "Write the tuning as a .scl file")->type_name("FILE");
     cmd->add_option("--mts-bulk", o->bulk,
                     "Write a bulk tuning dump of keys 0-127 (sub-ID 01; 04 with --bank)")

@@ -11,7 +11,7 @@ void add_inspect(CLI::App& app) {
     auto* cmd = app.add_subcommand("inspect", "Show the degrees of a tuning: exact value, cents, steps");
     auto tuning = std::make_shared<std::string>();
     auto json = std::make_shared<bool>(false);
-    cmd->add_option("TUNING", *tuning, "A .scl file or a recipe (quote it)")->required();
+    cmd->add_option("TUNING", *tuning, tuning_help)->required();
     cmd->add_flag("--json", *json, "Print one JSON object (keys documented in the README)");
     cmd->callback([=] {
         Scale scale = load_tuning(*tuning);

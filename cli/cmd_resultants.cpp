@@ -19,7 +19,7 @@ void add_resultants(CLI::App& app) {
         bool json = false, csv = false;
     };
     auto a = std::make_shared<Args>();
-    cmd->add_option("TUNING", a->tuning, "A .scl file")->required();
+    cmd->add_option("TUNING", a->tuning, tuning_help)->required();
     cmd->add_option("--ref-hz", a->ref_hz, "Frequency of degree 0 in the lowest period (default 261.6255653, C4)");
     cmd->add_option("--span", a->span, "Periods the keyboard spans, 1 to 11 (default 1)");
     cmd->add_option("--order", a->order, "Highest order |a|+|b| of a term, 2 to 12 (default 3)");

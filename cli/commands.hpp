@@ -7,6 +7,9 @@
 
 namespace terzo::cli {
 
+/// Help text of every TUNING argument.
+inline constexpr const char* tuning_help = "A .scl file or an inline recipe such as \"meantone 1/4\" (quote it)";
+
 void add_inspect(CLI::App& app);
 void add_resultants(CLI::App& app);
 void add_sheet(CLI::App& app);
