@@ -23,7 +23,7 @@ void add_compare(CLI::App& app) {
     auto no_fit = std::make_shared<bool>(false);
     auto order = std::make_shared<int>(3);
     auto spelling = std::make_shared<std::string>("mixed");
-    cmd->add_option("TUNING", *tunings, "Two to twelve .scl files or recipes")
+    cmd->add_option("TUNING", *tunings, std::string(tuning_help) + "; two to twelve of them")
         ->required()
         ->expected(2, 12);
     cmd->add_option("--pitch", *pitch, "Reference pitch NOTE=HZ for beat rates (default A4=440)")
@@ -46,6 +46,7 @@ void add_compare(CLI::App& app) {
         cmd, "Table to print: keys, summary, wolves or classes (--csv: default keys)");
     cmd->callback([=] {
         const ReportOutput& o = *out_opts;
+        check_svg_target(o);
         CompareOptions opts;
         opts.reference = parse_pitch_reference(*pitch, {"--pitch", 0, 0});
         opts.tonic = parse_pitch_class(*tonic, {"--tonic", 0, 0});

@@ -35,7 +35,7 @@ void add_sheet(CLI::App& app) {
     auto falling = std::make_shared<bool>(false);
     auto spelling = std::make_shared<std::string>("mixed");
     auto paper = std::make_shared<std::string>("a4");
-    cmd->add_option("TUNING", *tuning, "A .scl file with 12 degrees")->required();
+    cmd->add_option("TUNING", *tuning, std::string(tuning_help) + ", with 12 degrees")->required();
     cmd->add_option("--pitch", *pitch, "Reference pitch NOTE=HZ, any note (default A4=440)")
         ->type_name("NOTE=HZ");
     cmd->add_option("--tonic", *tonic, "Note of degree 0 (default C)")->type_name("NOTE");
@@ -55,6 +55,7 @@ void add_sheet(CLI::App& app) {
         cmd, "Table to print: notes, intervals, order or fifths (--csv: default notes)");
     cmd->callback([=] {
         const ReportOutput& o = *out_opts;
+        check_svg_target(o);
         SheetOptions opts;
         opts.reference = parse_pitch_reference(*pitch, {"--pitch", 0, 0});
         opts.tonic = parse_pitch_class(*tonic, {"--tonic", 0, 0});

@@ -4,11 +4,13 @@
 #pragma once
 
 #include <CLI/CLI.hpp>
+#include <filesystem>
 #include <functional>
 #include <memory>
 #include <ostream>
 #include <string>
 
+#include "core/error.hpp"
 #include "core/io/atomic_file.hpp"
 #include "core/io/table.hpp"
 
@@ -48,6 +50,14 @@ inline void write_part(std::ostream& out, const ReportOutput& o, const std::stri
         write_text(out, t);
         out << '\n';
     }
+}
+
+/// Refuses early, before any work, an --svg file that exists when --force is not given (the
+/// atomic write checks again when it replaces the file).
+inline void check_svg_target(const ReportOutput& o) {
+    std::error_code ec;
+    if (!o.svg.empty() && !o.force && std::filesystem::exists(o.svg, ec))
+        fail({o.svg, 0, 0}, "already exists and was not changed; give --force to replace it");
 }
 
 /// Writes the SVG file when one was asked for.

@@ -111,30 +111,25 @@ CompareSummary summarize(const std::vector<KeyReport>& keys,
     if (fit_total > 0) s.mean_fit = fit_sum / fit_total;
     // Distinct intervals: the fifth and major third of each major key, the minor third of each
     // minor key (together every fifth, major and minor third on each of the 12 notes once).
+    std::vector<Wolf> fifths, major_thirds, minor_thirds;
+    auto consider = [](const char* name, int from, const Beat& b, double threshold, int& pure,
+                       std::vector<Wolf>& wolves) {
+        if (b.tempering == Tempering::pure) ++pure;
+        if (std::fabs(b.cents) > threshold) wolves.push_back({name, from, b.cents});
+    };
     for (const KeyReport& k : keys) {
-        auto consider = [&](const char* name, int from, const Beat& b, double threshold) {
-            if (b.tempering == Tempering::pure) {
-                if (name[0] == 'f')
-                    ++s.pure_fifths;
-                else if (name[1] == 'a')
-                    ++s.pure_major_thirds;
-                else
-                    ++s.pure_minor_thirds;
-            }
-            if (std::fabs(b.cents) > threshold) s.wolves.push_back({name, from, b.cents});
-        };
         if (!k.key.minor) {
-            consider("fifth", k.key.root, k.fifth_beat, wolf_fifth_cents);
-            consider("major third", k.key.root, k.major_third, wolf_third_cents);
+            consider("fifth", k.key.root, k.fifth_beat, wolf_fifth_cents, s.pure_fifths, fifths);
+            consider("major third", k.key.root, k.major_third, wolf_third_cents,
+                     s.pure_major_thirds, major_thirds);
         } else {
-            consider("minor third", k.key.root, k.minor_third, wolf_third_cents);
+            consider("minor third", k.key.root, k.minor_third, wolf_third_cents,
+                     s.pure_minor_thirds, minor_thirds);
         }
     }
-    auto rank = [](const Wolf& w) {
-        return w.interval == "fifth" ? 0 : w.interval == "major third" ? 1 : 2;
-    };
-    std::stable_sort(s.wolves.begin(), s.wolves.end(),
-                     [&](const Wolf& a, const Wolf& b) { return rank(a) < rank(b); });
+    s.wolves = fifths;
+    s.wolves.insert(s.wolves.end(), major_thirds.begin(), major_thirds.end());
+    s.wolves.insert(s.wolves.end(), minor_thirds.begin(), minor_thirds.end());
     return s;
 }
 

@@ -112,12 +112,9 @@ struct Sheet {
     std::vector<CircleFifth> circle;
 };
 
-/// Largest range a sheet accepts, in semitones (the MIDI keyboard, 0..127).
-constexpr int max_sheet_span = 127;
-
 /// Builds the sheet; throws InputError (at `source` for the tuning, "--range"/"--start" for
-/// the options) for a tuning that is not 12 notes, a range under an octave or reversed, or a
-/// start note outside the temperament octave.
+/// the options) for a tuning that is not 12 notes, a range under an octave, reversed or off
+/// the MIDI keyboard (C-1..G9, keys 0..127), or a start note outside the temperament octave.
 Sheet make_sheet(const Scale& scale, const SheetOptions& options, const std::string& source);
 
 } // namespace terzo

@@ -235,12 +235,35 @@ double draw_table(Svg& svg, const Table& t, const std::vector<double>& widths, d
 
 } // namespace
 
+namespace {
+
+// Cuts text to what fits in `width` mm at `font` mm, at about 0.55 em per character (a
+// sans-serif average), ending in "..." when cut; never splits a UTF-8 sequence.
+std::string fit_line(const std::string& text, double width, double font) {
+    std::size_t max_chars = static_cast<std::size_t>(width / (font * 0.55));
+    std::size_t chars = 0, i = 0;
+    for (; i < text.size(); ++i) {
+        if ((static_cast<unsigned char>(text[i]) & 0xC0) == 0x80) continue;
+        if (++chars > max_chars) break;
+    }
+    if (i >= text.size()) return text;
+    std::size_t cut = i;
+    for (int k = 0; k < 3 && cut > 0; ++k) {
+        do
+            --cut;
+        while (cut > 0 && (static_cast<unsigned char>(text[cut]) & 0xC0) == 0x80);
+    }
+    return text.substr(0, cut) + "...";
+}
+
+} // namespace
+
 std::string sheet_svg(const Sheet& s, const Paper& paper) {
     const double margin = 12, row_h = 3.8, font = 2.7;
     Table notes = sheet_notes_table(s), order = sheet_order_table(s);
     // Page plan: header, the notes table across the page, then the order table on the left
     // and the circle of fifths on the right, then the advice.
-    const double header_h = 22, gap = 8, circle_block = 75, footer_h = 18;
+    const double header_h = 24, gap = 8, circle_block = 75, footer_h = 18;
     auto height_for = [&](std::size_t note_rows, std::size_t order_rows) {
         return margin + header_h + static_cast<double>(note_rows + 1) * row_h + gap +
                std::max(static_cast<double>(order_rows + 1) * row_h, circle_block) + footer_h +
@@ -257,9 +280,13 @@ std::string sheet_svg(const Sheet& s, const Paper& paper) {
                  " page, which holds " + std::to_string(fits) + " notes; give a smaller --range");
     }
     Svg svg(paper.width_mm, paper.height_mm, "mm", "Tuner's sheet: " + s.description);
-    double x = margin, y = margin + 6;
-    svg.text(x, y, "Tuner's sheet: " + s.description, {5.0, SvgFont::Anchor::start, true, "#000"});
-    y += 7;
+    double x = margin, y = margin + 5;
+    double usable = paper.width_mm - 2 * margin;
+    svg.text(x, y, "Tuner's sheet", {5.0, SvgFont::Anchor::start, true, "#000"});
+    y += 5.5;
+    svg.text(x, y, fit_line(s.description, usable, 3.4),
+             {3.4, SvgFont::Anchor::start, true, "#000"});
+    y += 5;
     svg.text(x, y,
              "Reference " + note_text(s.options.reference.note, s.options.spelling) + " = " +
                  fixed(s.options.reference.hz, 3) + " Hz. Degree 0 on " +
@@ -272,7 +299,6 @@ std::string sheet_svg(const Sheet& s, const Paper& paper) {
     svg.text(x, y, "\"vs 12-TET\": cents from equal temperament at the same reference.",
              {2.6, SvgFont::Anchor::start, false, "#444"});
     y = margin + header_h;
-    double usable = paper.width_mm - 2 * margin;
     std::vector<double> nw = {14, 13, 21, 19};
     double rest = (usable - 67) / 5;
     for (int i = 0; i < 5; ++i)

@@ -214,3 +214,22 @@ TEST_CASE("bad sheet requests are refused with a clear message", "[sheet]") {
             "--start: error: start note F4 is outside the temperament octave F3..E4");
     }
 }
+
+TEST_CASE("notes in other periods stack the tuning's own period", "[sheet]") {
+    // A 12-TET whose octave is stretched to 1201 c: each period up adds 1 c against 12-TET at
+    // the same reference (constructed example).
+    std::vector<Pitch> d;
+    for (int i = 1; i < 12; ++i)
+        d.push_back(Pitch::from_cents(100.0 * i));
+    Scale stretched("stretched", d, Pitch::from_cents(1201.0));
+    NoteMap map(stretched, 0, PitchReference{}, "s");
+    CHECK(map.offset_from_equal(note("A4")) == Approx(0.0).margin(1e-9));
+    CHECK(map.offset_from_equal(note("A5")) == Approx(1.0).margin(1e-9));
+    CHECK(map.offset_from_equal(note("A2")) == Approx(-2.0).margin(1e-9));
+    CHECK(map.offset_from_equal(note("C-1")) == Approx(-5.0).margin(1e-9));
+    CHECK(map.degree_of(note("B-1")) == 11);
+    // Exact tunings stay exact across periods: C-1 to C9 is exactly 2^10 in 12-TET.
+    NoteMap et(test::equal_12(), 0, PitchReference{}, "et");
+    CHECK(et.interval(note("C-1"), note("C9")) == Pitch::from_ratio(Ratio(1024)));
+    CHECK(et.hz(note("C-1")) == Approx(8.175799).margin(1e-6)); // MIDI key 0 at A4 = 440 [CP]
+}

@@ -68,3 +68,21 @@ TEST_CASE("terzo compare reports bad input and prints nothing", "[compare]") {
     CHECK(run_terzo("compare 'equal 12'").status != 0); // two tunings at least
     std::filesystem::remove_all(dir);
 }
+
+TEST_CASE("terzo compare finds the pure thirds of a library file written in cents", "[compare]") {
+    // scales/meantone-quarter-comma.scl holds cents-only values (E and G# are written as
+    // ratios); its 8 major thirds are pure, most of them within the cents-only tolerance
+    // (REFERENCES.md 2.2: 1/4-comma makes 5/4 pure).
+    auto r =
+        run_terzo("compare " + terzo::test::source_path("scales/meantone-quarter-comma.scl") + " " +
+                  terzo::test::source_path("scales/werckmeister-iii.scl") + " --json --no-fit");
+    REQUIRE(r.status == 0);
+    auto doc = nlohmann::json::parse(r.out);
+    CHECK(doc["tunings"][0]["summary"]["pure_major_thirds"] == 8);
+    CHECK(doc["tunings"][0]["keys"][0]["major_third"]["exact"] == true);  // C-E: 1/1 to 5/4
+    CHECK(doc["tunings"][0]["keys"][7]["major_third"]["exact"] == false); // G-B: cents only
+    CHECK(doc["tunings"][0]["keys"][7]["major_third"]["tempering"] == "pure");
+    // REFERENCES.md 2.1: Werckmeister III has 8 pure fifths and no wolf.
+    CHECK(doc["tunings"][1]["summary"]["pure_fifths"] == 8);
+    CHECK(doc["tunings"][1]["summary"]["wolves"].empty());
+}

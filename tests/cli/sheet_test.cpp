@@ -40,7 +40,8 @@ TEST_CASE("terzo sheet --svg writes a file once and refuses to overwrite it", "[
     auto again = run_terzo("sheet 'meantone 1/4 from Eb' --svg " + file);
     CHECK(again.status == 1);
     CHECK(again.out.empty());
-    CHECK(again.err.find("exists") != std::string::npos);
+    CHECK(again.err ==
+          file + ": error: already exists and was not changed; give --force to replace it\n");
     CHECK(terzo::test::slurp(file) == first);
     auto forced = run_terzo("sheet 'meantone 1/4 from Eb' --svg " + file + " --force");
     CHECK(forced.status == 0);

@@ -117,3 +117,13 @@ TEST_CASE("a range too large for one page is refused", "[sheet_report]") {
     o.high = note("F5"); // two octaves fit on either
     CHECK_NOTHROW(sheet_svg(make_sheet(test::equal_12(), o, "12"), paper_letter()));
 }
+
+TEST_CASE("a long description is cut to the page width", "[sheet_report]") {
+    Scale t = test::equal_12();
+    Scale long_name(std::string(300, 'x'), {t.degrees().begin() + 1, t.degrees().end()},
+                    t.period());
+    std::string doc = sheet_svg(make_sheet(long_name, SheetOptions{}, "long"), paper_a4());
+    // 186 mm at 3.4 mm and 0.55 em per character: 99 characters, the last three "...".
+    CHECK(doc.find(">" + std::string(96, 'x') + "...</text>") != std::string::npos);
+    CHECK(test::parse_with_python(doc).rfind("{http://www.w3.org/2000/svg}svg ", 0) == 0);
+}
