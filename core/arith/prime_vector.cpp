@@ -153,15 +153,19 @@ bool PrimeVector::is_rational() const {
 
 std::optional<Ratio> PrimeVector::to_ratio() const {
     if (!is_rational()) return std::nullopt;
+    // Budget: a numerator or denominator of more than max_ratio_bits bits is left in prime-
+    // vector form. Such numbers are far beyond musical use and their gcds would take seconds.
+    long double num_bits = 0, den_bits = 0;
+    for (const auto& [p, e] : terms_)
+        (e.sign() > 0 ? num_bits : den_bits) +=
+            std::fabs(e.to_long_double()) * std::log2(static_cast<long double>(p));
+    if (num_bits > max_ratio_bits || den_bits > max_ratio_bits) return std::nullopt;
     Ratio::Big num = 1, den = 1;
     for (const auto& [p, e] : terms_) {
-        // Exponents here are integers; pow of cpp_int needs an unsigned count.
-        Ratio::Big k = e.big_num();
+        Ratio::Big k = e.big_num(); // an integer here
         bool up = k > 0;
         if (!up) k = -k;
-        if (k > 100000) return std::nullopt; // beyond any musical use; avoids huge allocations
-        Ratio::Big power = boost::multiprecision::pow(Ratio::Big(p), static_cast<unsigned>(k));
-        (up ? num : den) *= power;
+        (up ? num : den) *= boost::multiprecision::pow(Ratio::Big(p), static_cast<unsigned>(k));
     }
     return Ratio::from_big(num, den);
 }

@@ -13,6 +13,9 @@
 
 namespace terzo {
 
+/// Largest numerator or denominator, in bits, that to_ratio() builds (see there).
+inline constexpr int max_ratio_bits = 4096;
+
 class PrimeVector {
 public:
     using Term = std::pair<std::uint64_t, Ratio>; ///< (prime, exponent)
@@ -40,7 +43,9 @@ public:
 
     /// True when every exponent is an integer, i.e. the value is a rational number.
     bool is_rational() const;
-    /// The value as a Ratio when is_rational().
+    /// The value as a Ratio when is_rational() and its numerator and denominator have at most
+    /// max_ratio_bits bits; larger rational values stay in this form (and a Pitch made from
+    /// them stays tempered-kind, still exact).
     std::optional<Ratio> to_ratio() const;
     /// 1200 * log2 of the value, summed in long double.
     double cents() const;

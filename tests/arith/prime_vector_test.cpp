@@ -63,8 +63,9 @@ TEST_CASE("primality and factoring agree with trial division", "[prime_vector]")
 }
 
 TEST_CASE("a vector with a huge integer exponent does not build a huge ratio", "[prime_vector]") {
-    PrimeVector v = PrimeVector::prime_power(3, Ratio(1000001));
+    PrimeVector v = PrimeVector::prime_power(3, Ratio(2585)); // 2585 * log2(3) > 4096 bits
     CHECK(v.is_rational());
     CHECK_FALSE(v.to_ratio().has_value());
-    CHECK(v.cents() == Approx(1000001 * 1901.955000865).epsilon(1e-12));
+    CHECK(v.cents() == Approx(2585 * 1901.955000865).epsilon(1e-12));
+    CHECK(PrimeVector::prime_power(3, Ratio(2584)).to_ratio().has_value()); // 4095.5 bits
 }
