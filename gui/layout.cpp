@@ -253,7 +253,7 @@ void draw_app(App& app) {
 
     central(app, ImVec2(left_width, top), ImVec2(centre_w, h));
 
-    const float listen_h = 190.0f;
+    const float listen_h = 262.0f;
     ImGui::SetNextWindowPos(ImVec2(left_width + centre_w, top));
     ImGui::SetNextWindowSize(ImVec2(right_width, h - listen_h));
     ImGui::Begin("Selection and its resultants", nullptr, fixed_window);
