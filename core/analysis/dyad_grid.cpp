@@ -1,0 +1,40 @@
+#include "core/analysis/dyad_grid.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <string>
+
+#include "core/error.hpp"
+
+namespace terzo {
+
+std::vector<DyadCell> dyad_grid(const Keyboard& keyboard, const ToneOptions& options) {
+    const std::size_t n = keyboard.scale().size();
+    if (n > max_grid_degrees)
+        fail({"dyad grid", 0, 0}, "the tuning has " + std::to_string(n) +
+                                      " degrees; the dyad grid shows at most " +
+                                      std::to_string(max_grid_degrees));
+    check_options(options);
+    std::vector<DyadCell> cells;
+    cells.reserve(n * n);
+    for (std::size_t i = 0; i < n; ++i) {
+        const Note low = keyboard.note(static_cast<int>(i), 0);
+        for (std::size_t j = 0; j < n; ++j) {
+            DyadCell c;
+            c.low_degree = static_cast<int>(i);
+            c.high_degree = static_cast<int>(j);
+            // Degrees need not ascend in a .scl file: compare sizes, not indices.
+            c.high_period = keyboard.note(c.high_degree, 0).cents > low.cents ? 0 : 1;
+            const Note high = keyboard.note(c.high_degree, c.high_period);
+            c.interval_cents = high.cents - low.cents;
+            DyadTones dyad{low, high, dyad_tones(keyboard, low, high, options)};
+            for (const Tone& t : dyad.tones)
+                c.worst_cents = std::max(c.worst_cents, std::abs(t.landing.deviation_cents));
+            c.fit = fit({dyad});
+            cells.push_back(std::move(c));
+        }
+    }
+    return cells;
+}
+
+} // namespace terzo

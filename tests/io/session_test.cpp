@@ -1,0 +1,212 @@
+#include "core/io/session.hpp"
+
+#include <catch2/catch.hpp>
+
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+#include "core/io/scl.hpp"
+
+using namespace terzo;
+
+namespace {
+
+Scale demo_scale() {
+    std::istringstream in("demo\n 3\n 5/4\n 701.955\n 2/1\n");
+    return read_scl(in, "demo.scl");
+}
+
+Session sample() {
+    Session s;
+    s.tunings.push_back({"scales/demo.scl", demo_scale()});
+    s.tunings.push_back({"other.scl", demo_scale()});
+    s.current = 1;
+    s.settings.reference_hz = 415.0;
+    s.settings.max_order = 3;
+    s.settings.pitch_reference = "A4=415";
+    s.settings.landing_tolerance_cents = 2.5;
+    s.selection = {0, 2, 3};
+    s.view = "grid";
+    s.volume = 0.25;
+    return s;
+}
+
+std::string text_of(const Session& s) {
+    std::ostringstream out;
+    write_session(out, s);
+    return out.str();
+}
+
+Session parse(const std::string& text) {
+    std::istringstream in(text);
+    return read_session(in, "s.json");
+}
+
+// The sample's text with one exact substring replaced.
+std::string edited(const std::string& from, const std::string& to) {
+    std::string t = text_of(sample());
+    auto at = t.find(from);
+    REQUIRE(at != std::string::npos);
+    return t.replace(at, from.size(), to);
+}
+
+Session parse_edited(const std::string& from, const std::string& to) {
+    return parse(edited(from, to));
+}
+
+} // namespace
+
+TEST_CASE("a session reads back exactly as it was written", "[session]") {
+    Session s = sample();
+    Session back = parse(text_of(s));
+    REQUIRE(back.tunings.size() == 2);
+    CHECK(back.tunings[0].source == "scales/demo.scl");
+    CHECK(back.tunings[0].scale == s.tunings[0].scale);
+    CHECK(back.tunings[1].scale.degree(1).ratio() == Ratio(5, 4));
+    CHECK_FALSE(back.tunings[1].scale.degree(2).is_exact());
+    CHECK(back.current == 1);
+    CHECK(back.settings.reference_hz == 415.0);
+    CHECK(back.settings.max_order == 3);
+    CHECK(back.settings.landing_tolerance_cents == 2.5);
+    CHECK(back.settings.span == 3);
+    CHECK(back.settings.grid_measure == "fit");
+    CHECK(back.settings.pitch_reference == "A4=415");
+    CHECK(back.selection == std::vector<int>{0, 2, 3});
+    CHECK(back.view == "grid");
+    CHECK(back.volume == 0.25);
+    CHECK(text_of(back) == text_of(s));
+}
+
+TEST_CASE("the session format is the documented JSON", "[session]") {
+    std::string t = text_of(sample());
+    CHECK(t.rfind("{\n  \"format\": \"terzo-session\",\n  \"version\": 1,\n  \"tunings\": [", 0) == 0);
+    CHECK(t.find("\"reference_hz\": 415.0") != std::string::npos);
+    CHECK(t.find("\"selection\": [\n    0,\n    2,\n    3\n  ]") != std::string::npos);
+}
+
+TEST_CASE("an empty session is valid", "[session]") {
+    Session back = parse(text_of(Session{}));
+    CHECK(back.tunings.empty());
+    CHECK(back.current == 0);
+    CHECK(back.view == "lattice");
+}
+
+TEST_CASE("session files are written atomically and replaced on save", "[session]") {
+    auto dir = std::filesystem::temp_directory_path() / "terzo_session_test";
+    std::filesystem::create_directories(dir);
+    auto path = dir / "s.json";
+    std::filesystem::remove(path);
+    save_session_file(path, sample());
+    Session again = sample();
+    again.view = "sheet";
+    save_session_file(path, again);
+    CHECK(load_session_file(path).view == "sheet");
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("malformed session files are rejected with one clear message", "[session]") {
+    SECTION("JSON syntax errors give line and column") {
+        REQUIRE_THROWS_WITH(parse("{\n  \"format\": x\n}"),
+                            "s.json:2:13: error: not valid JSON: syntax error while parsing value "
+                            "- invalid literal; last read: '\"format\": x'");
+        REQUIRE_THROWS_WITH(parse(""), Catch::StartsWith("s.json:1:1: error: not valid JSON:"));
+    }
+    SECTION("the wrong kind of file") {
+        REQUIRE_THROWS_WITH(parse("[1, 2]"), "s.json: error: the session must be a JSON object");
+        REQUIRE_THROWS_WITH(parse("{\"format\": \"other\"}"),
+                            "s.json: error: not a terzo session: \"format\" must be \"terzo-session\"");
+        REQUIRE_THROWS_WITH(parse("{}"), "s.json: error: missing key \"format\"");
+        REQUIRE_THROWS_WITH(parse_edited("\"version\": 1", "\"version\": 2"),
+                            "s.json: error: session version 2 is not supported; this terzo reads "
+                            "version 1");
+    }
+    SECTION("missing, unknown and mistyped keys") {
+        REQUIRE_THROWS_WITH(parse_edited("\"view\": \"grid\",", ""),
+                            "s.json: error: missing key \"view\"");
+        REQUIRE_THROWS_WITH(parse_edited("\"view\": \"grid\"", "\"view\": \"grid\", \"colour\": 1"),
+                            "s.json: error: unknown key \"colour\"");
+        REQUIRE_THROWS_WITH(parse_edited("\"partials\": 1", "\"partials\": 1, \"speed\": 2"),
+                            "s.json: error: unknown key \"speed\" in \"settings\"");
+        REQUIRE_THROWS_WITH(parse_edited("\"source\": \"other.scl\"", "\"source\": 3"),
+                            "s.json: error: \"tunings[1].source\" must be a string, found 3");
+        REQUIRE_THROWS_WITH(parse_edited("\"tunings\": [", "\"tunings\": 4, \"x\": ["),
+                            "s.json: error: \"tunings\" must be an array, found 4");
+        REQUIRE_THROWS_WITH(parse_edited("\"settings\": {", "\"settings\": 1, \"y\": {"),
+                            "s.json: error: \"settings\" must be a JSON object");
+    }
+    SECTION("values out of range") {
+        REQUIRE_THROWS_WITH(parse_edited("\"reference_hz\": 415.0", "\"reference_hz\": 0"),
+                            "s.json: error: \"settings.reference_hz\" must be a number from "
+                            "0.001 to 100000, found 0");
+        REQUIRE_THROWS_WITH(parse_edited("\"max_order\": 3", "\"max_order\": 13"),
+                            "s.json: error: \"settings.max_order\" must be an integer from 2 to 12, "
+                            "found 13");
+        REQUIRE_THROWS_WITH(parse_edited("\"max_order\": 3", "\"max_order\": 3.5"),
+                            "s.json: error: \"settings.max_order\" must be an integer from 2 to 12, "
+                            "found 3.5");
+        REQUIRE_THROWS_WITH(parse_edited("\"landing_tolerance_cents\": 2.5", "\"landing_tolerance_cents\": 0"),
+                            "s.json: error: \"settings.landing_tolerance_cents\" must be a number "
+                            "above 0 up to 600, found 0");
+        REQUIRE_THROWS_WITH(parse_edited("\"span\": 3", "\"span\": 12"),
+                            "s.json: error: \"settings.span\" must be an integer from 1 to 11, "
+                            "found 12");
+        REQUIRE_THROWS_WITH(parse_edited("\"grid_measure\": \"fit\"", "\"grid_measure\": \"best\""),
+                            "s.json: error: grid measure \"best\" is neither \"worst\" nor \"fit\"");
+        REQUIRE_THROWS_WITH(parse_edited("\"current\": 1", "\"current\": 2"),
+                            "s.json: error: \"current\" must be an integer from 0 to 1, found 2");
+        REQUIRE_THROWS_WITH(parse_edited("\"view\": \"grid\"", "\"view\": \"map\""),
+                            "s.json: error: \"view\" must be one of lattice, grid, keys, sheet; "
+                            "found \"map\"");
+        REQUIRE_THROWS_WITH(parse_edited("\"volume\": 0.25", "\"volume\": 2"),
+                            "s.json: error: \"volume\" must be a number from 0 to 1, found 2");
+    }
+    SECTION("a malformed pitch reference is reported by the note-name parser") {
+        REQUIRE_THROWS_WITH(parse_edited("\"A4=415\"", "\"A4=\""),
+                            "s.json: error: expected a frequency in Hz after '=' in \"A4=\"");
+    }
+    SECTION("bad selections") {
+        // The current tuning has 3 degrees and the span is 3 periods: notes 0 to 9.
+        REQUIRE_THROWS_WITH(parse_edited("\n    0,", "\n    10,"),
+                            "s.json: error: \"selection\" must hold note numbers from 0 to 9 of "
+                            "the current keyboard, found 10");
+        REQUIRE_THROWS_WITH(parse_edited("\n    2,", "\n    0,"),
+                            "s.json: error: \"selection\" must be ascending without repeats, found "
+                            "[0,0,3]");
+        REQUIRE_THROWS_WITH(parse_edited("\n    3\n", "\n    3,4,5,6,7,8,9\n"),
+                            "s.json: error: \"selection\" has 9 entries; at most 8 are allowed");
+    }
+    SECTION("a broken embedded tuning names its entry and line") {
+        REQUIRE_THROWS_WITH(parse_edited("5/4", "5/0"),
+                            Catch::StartsWith("s.json tunings[0]:"));
+    }
+    SECTION("limits: number of tunings and file size") {
+        Session many;
+        for (int i = 0; i < 65; ++i) many.tunings.push_back({"t.scl", demo_scale()});
+        REQUIRE_THROWS_WITH(parse(text_of(many)),
+                            "s.json: error: \"tunings\" has 65 entries; at most 64 are allowed");
+        std::string huge(max_session_bytes + 10, ' ');
+        REQUIRE_THROWS_WITH(parse(huge), "s.json: error: the session file is larger than 64 MiB");
+    }
+    SECTION("unreadable paths") {
+        REQUIRE_THROWS_WITH(load_session_file("/nonexistent/s.json"),
+                            "/nonexistent/s.json: error: cannot open the session file for reading");
+        REQUIRE_THROWS_WITH(load_session_file("/tmp"),
+                            "/tmp: error: is a folder, not a session file");
+    }
+}
+
+TEST_CASE("settings outside their ranges are rejected by check_settings", "[session]") {
+    SessionSettings s;
+    CHECK_NOTHROW(check_settings(s, "x"));
+    s.partials = 33;
+    REQUIRE_THROWS_WITH(check_settings(s, "x"), "x: error: partials 33 is outside 1 to 32");
+    s = {};
+    s.reference_hz = 200000;
+    REQUIRE_THROWS_WITH(check_settings(s, "x"),
+                        "x: error: reference pitch 200000.000 Hz is outside 0.001 to 100000 Hz");
+    s = {};
+    s.max_order = 1;
+    REQUIRE_THROWS_WITH(check_settings(s, "x"),
+                        "x: error: combination-tone order 1 is outside 2 to 12");
+}
