@@ -9,7 +9,7 @@ int main(int argc, char** argv) {
                  "tones (resultants) of every dyad and chord. Give a subcommand; each has --help."};
     app.set_version_flag("--version", std::string("terzo ") + TERZO_VERSION);
     app.require_subcommand(1);
-terzo::cli::add_inspect(app);
+    terzo::cli::add_inspect(app);
     terzo::cli::add_resultants(app);
     terzo::cli::add_sheet(app);
     terzo::cli::add_compare(app);
