@@ -33,6 +33,12 @@ def wait_for(predicate, what, seconds=10):
     raise AssertionError("timed out waiting for " + what)
 
 
+def settle(factor=1):
+    """Gives the program time to take in an event and draw: frames take longer on a loaded
+    machine, so the pause is generous rather than tuned."""
+    time.sleep(0.7 * factor)
+
+
 def read_session():
     with open(session) as f:
         return json.load(f)
@@ -52,52 +58,68 @@ assert right, "no node to the right of 1/1"
 n4 = min(right, key=lambda b: b[0])
 print("degree 0 at", n0[:2], "degree 4 at", n4[:2])
 
-# Autosave is pushed an hour away, so the session file is written only by Ctrl+S and on quit.
-proc = subprocess.Popen([gui, "--fresh", "--autosave-ms", "3600000", "--session", session, tuning], cwd=work)
-try:
-    wait_for(lambda: subprocess.run(["xdotool", "search", "--name", "^terzo$"], capture_output=True).returncode == 0, "the window")
-    time.sleep(1.0)  # the first frames
-    assert not os.path.exists(session)
-    xdo("mousemove", str(round(n0[0])), str(round(n0[1])))
-    time.sleep(0.3)
-    xdo("click", "1")
-    time.sleep(0.3)
-    xdo("mousemove", str(round(n4[0])), str(round(n4[1])))
-    time.sleep(0.3)
-    xdo("click", "1")
-    time.sleep(0.3)
-    xdo("key", "2")
-    time.sleep(0.3)
-    assert not os.path.exists(session)
-    xdo("key", "ctrl+s")
-    wait_for(lambda: os.path.exists(session), "Ctrl+S to save the session")
-    s = read_session()
-    print("after clicks:", s["selection"], s["view"])
-    assert s["selection"] == [0, 4], s["selection"]
-    assert s["view"] == "grid"
-    assert s["tunings"][0]["source"] == tuning
-    # Ctrl+P opens the export dialog in the working folder with a file name filled in; Enter
-    # saves the lattice canvas: the 6 unselected demo nodes, the dialog no longer in the way.
-    xdo("key", "1")
-    time.sleep(0.3)
-    xdo("key", "ctrl+p")
-    time.sleep(0.8)
-    xdo("key", "Return")
-    png = os.path.join(work, "demo-lattice.png")
-    wait_for(lambda: os.path.exists(png), "the lattice PNG")
-    lattice = g.read_png(png)
-    print("lattice export:", lattice[0], "x", lattice[1])
-    assert 500 < lattice[0] < 700 and 500 < lattice[1] < 700, lattice[:2]
-    assert len(g.blobs(lattice, g.NODE)) == 6
-    xdo("key", "Escape")
-    time.sleep(0.3)
-    xdo("key", "ctrl+q")
-    assert proc.wait(timeout=10) == 0
-    s = read_session()
-    print("after Escape and Ctrl+Q:", s["selection"], s["view"])
-    assert s["selection"] == []
-    assert s["view"] == "lattice"
-finally:
-    if proc.poll() is None:
-        proc.kill()
+def attempt():
+    for leftover in (session, os.path.join(work, "demo-lattice.png")):
+        if os.path.exists(leftover):
+            os.remove(leftover)
+    # Autosave is pushed an hour away, so the session file is written only by Ctrl+S and on quit.
+    proc = subprocess.Popen([gui, "--fresh", "--autosave-ms", "3600000", "--session", session, tuning], cwd=work)
+    try:
+        wait_for(lambda: subprocess.run(["xdotool", "search", "--name", "^terzo$"], capture_output=True).returncode == 0, "the window")
+        settle(3)  # the first frames
+        assert not os.path.exists(session)
+        xdo("mousemove", str(round(n0[0])), str(round(n0[1])))
+        settle()
+        xdo("click", "1")
+        settle()
+        xdo("mousemove", str(round(n4[0])), str(round(n4[1])))
+        settle()
+        xdo("click", "1")
+        settle()
+        xdo("key", "2")
+        settle()
+        assert not os.path.exists(session)
+        xdo("key", "ctrl+s")
+        wait_for(lambda: os.path.exists(session), "Ctrl+S to save the session")
+        s = read_session()
+        print("after clicks:", s["selection"], s["view"])
+        assert s["selection"] == [0, 4], s["selection"]
+        assert s["view"] == "grid"
+        assert s["tunings"][0]["source"] == tuning
+        # Ctrl+P opens the export dialog in the working folder with a file name filled in; Enter
+        # saves the lattice canvas: the 6 unselected demo nodes, the dialog no longer in the way.
+        xdo("key", "1")
+        settle()
+        xdo("key", "ctrl+p")
+        settle(2)
+        xdo("key", "Return")
+        png = os.path.join(work, "demo-lattice.png")
+        wait_for(lambda: os.path.exists(png), "the lattice PNG")
+        lattice = g.read_png(png)
+        print("lattice export:", lattice[0], "x", lattice[1])
+        assert 500 < lattice[0] < 700 and 500 < lattice[1] < 700, lattice[:2]
+        assert len(g.blobs(lattice, g.NODE)) == 6
+        xdo("key", "Escape")
+        settle()
+        xdo("key", "ctrl+q")
+        assert proc.wait(timeout=10) == 0
+        s = read_session()
+        print("after Escape and Ctrl+Q:", s["selection"], s["view"])
+        assert s["selection"] == []
+        assert s["view"] == "lattice"
+    finally:
+        if proc.poll() is None:
+            proc.kill()
+
+
+# Synthetic input under Xvfb on a shared machine can lose a race with a slow frame; a real
+# defect fails every attempt, so up to three attempts are made and each failure is shown.
+for n in range(1, 4):
+    try:
+        attempt()
+        break
+    except (AssertionError, subprocess.TimeoutExpired) as e:
+        print(f"attempt {n} failed: {e!r}")
+        if n == 3:
+            raise
 print("ok")
