@@ -65,7 +65,11 @@ case "$ACTION" in
     if [ -n "${DISPLAY:-}" ] && [ -x "$BUILD_DIR/gui/terzo-gui" ]; then
       exec "$BUILD_DIR/gui/terzo-gui" assets/demo.scl
     fi
-    exec "$BUILD_DIR/cli/terzo" demo
+    # No display: the terminal analysis of the demo, its degrees and the resultants of its
+    # major triad (degrees 0, 2 and 4).
+    "$BUILD_DIR/cli/terzo" inspect assets/demo.scl
+    echo
+    exec "$BUILD_DIR/cli/terzo" resultants assets/demo.scl --chord 0,2,4 --order 3
     ;;
   test)
     install_missing
