@@ -18,7 +18,7 @@ PACKAGES=(
   cmake ninja-build g++ pkg-config python3
   libboost-dev libsfml-dev libimgui-dev catch2 libcli11-dev libfmt-dev nlohmann-json3-dev
   libbenchmark-dev libfftw3-dev libsndfile1-dev sox
-  xvfb xauth xdotool
+  xvfb xauth xdotool libgl1-mesa-dri
   strace
   clang libclang-rt-14-dev
 )
