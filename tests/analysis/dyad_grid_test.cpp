@@ -51,7 +51,8 @@ TEST_CASE("every resultant of a just octave lands exactly on the scale", "[dyad_
     // order <= 3): 1/1, 3/2, 1/1, 5/4 octave-reduced, all degrees of the demo scale
     // (arithmetic as in REFERENCES.md 5.2 [C]).
     Keyboard kb(demo(), 261.6255653, 1);
-    const DyadCell& octave = dyad_grid(kb, order(3))[0];
+    const auto cells = dyad_grid(kb, order(3)); // keep the grid alive while its cell is read
+    const DyadCell& octave = cells[0];
     CHECK(octave.worst_cents == 0.0);
     CHECK(octave.fit.tones > 0);
     CHECK(octave.fit.exact == octave.fit.tones);
@@ -63,7 +64,8 @@ TEST_CASE("the worst landing of a tempered third is its difference tone", "[dyad
     // C2, so 32.626 c below the nearest 12-TET note (C#2). The summation tone 591.2531 Hz lands
     // 11.527 c above D5; at order 2 these are the only tones.
     Keyboard kb(edo(12), 261.6255653, 1);
-    const DyadCell& third = dyad_grid(kb, order(2))[4];
+    const auto cells = dyad_grid(kb, order(2));
+    const DyadCell& third = cells[4];
     CHECK(third.low_degree == 0);
     CHECK(third.high_degree == 4);
     CHECK_THAT(third.worst_cents, WithinAbs(32.626, 1e-3));
