@@ -24,7 +24,7 @@ std::vector<int> parse_notes(const std::string& text) {
         const std::size_t digits = item.size() - (!item.empty() && item[0] == '-' ? 1 : 0);
         if (digits == 0 || digits > 6 ||
             item.find_first_not_of("0123456789", item.size() - digits) != std::string::npos)
-            fail({"--notes", 0, 0}, terzo::quoted(item) +
+            fail({"--notes", 0, 0}, terzo::excerpt(item) +
                                         " is not a degree number; write whole numbers "
                                         "separated by commas, such as 0,4,7");
         notes.push_back(std::stoi(item));
@@ -107,7 +107,7 @@ void add_render(CLI::App& app) {
         RenderSettings s = o->s;
         auto model = parse_model(o->model);
         if (!model)
-            fail({"--model", 0, 0}, terzo::quoted(o->model) +
+            fail({"--model", 0, 0}, terzo::excerpt(o->model) +
                                         " is not a model; use none, poly, oscillator or predicted");
         s.model = *model;
         if (o->c2) s.polynomial.c2 = s.oscillator.c2 = *o->c2;
@@ -117,7 +117,7 @@ void add_render(CLI::App& app) {
             format.sample_format = SampleFormat::float32;
         else if (o->sample_format != "int16")
             fail({"--sample-format", 0, 0},
-                 terzo::quoted(o->sample_format) + " is not a sample format; use int16 or float32");
+                 terzo::excerpt(o->sample_format) + " is not a sample format; use int16 or float32");
         const std::vector<int> notes = parse_notes(o->notes);
         check_render_settings(s, notes.size());
         const Scale scale = load_tuning(o->tuning);

@@ -40,7 +40,7 @@ Pitch parse_period(const std::string& text) {
         char* end = nullptr;
         double c = std::strtod(text.c_str(), &end);
         if (*end != '\0' || !(c > 0) || c > 1e5)
-            fail({"--period", 0, 0}, "expected a ratio such as 2/1 or cents from 0 to 100000 such as 1901.955, found " + terzo::quoted(text));
+            fail({"--period", 0, 0}, "expected a ratio such as 2/1 or cents from 0 to 100000 such as 1901.955, found " + terzo::excerpt(text));
         return Pitch::from_cents(c);
     }
     Ratio r = parse_ratio(text, {"--period", 1, 1});
@@ -52,7 +52,7 @@ Statistic parse_statistic(const std::string& text) {
     if (text == "rms") return Statistic::rms;
     if (text == "mean") return Statistic::mean;
     if (text == "worst") return Statistic::worst;
-    fail({"--statistic", 0, 0}, "expected rms, mean or worst, found " + terzo::quoted(text));
+    fail({"--statistic", 0, 0}, "expected rms, mean or worst, found " + terzo::excerpt(text));
 }
 
 Cost build_cost(const SearchArgs& a) {
@@ -430,7 +430,7 @@ void add_search(CLI::App& app) {
         else if (a->space == "continuous") run_circulating(*a, true);
         else if (a->space == "rank2") run_rank2(*a);
         else if (a->space == "equal") run_equal(*a);
-        else fail({"SPACE", 0, 0}, "unknown search space " + terzo::quoted(a->space) + "; use circulating, continuous, rank2 or equal");
+        else fail({"SPACE", 0, 0}, "unknown search space " + terzo::excerpt(a->space) + "; use circulating, continuous, rank2 or equal");
     });
 }
 

@@ -5,7 +5,7 @@
 
 namespace terzo {
 
-std::string quoted(std::string_view text) {
+std::string excerpt(std::string_view text) {
     constexpr std::size_t limit = 100;
     if (text.size() <= limit) return "\"" + std::string(text) + "\"";
     return "\"" + std::string(text.substr(0, limit)) + "...\"";

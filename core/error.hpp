@@ -32,9 +32,9 @@ private:
 /// Throws InputError; the single place the message format is decided.
 [[noreturn]] void fail(const SourcePos& pos, const std::string& message);
 
-/// The piece of input a message talks about, in double quotes, cut to its first 100 bytes
+/// An excerpt of the input a message talks about, in double quotes, cut to its first 100 bytes
 /// (then "...") so that a 10 MB line never becomes a 10 MB message.
-std::string quoted(std::string_view text);
+std::string excerpt(std::string_view text);
 
 /// Formats "source:line:column: error: message", leaving out unknown parts.
 std::string format_error(const SourcePos& pos, const std::string& message);

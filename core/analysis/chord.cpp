@@ -54,19 +54,19 @@ std::vector<Note> parse_chord(const std::string& text, const Keyboard& kb, const
         SourcePos at = pos;
         at.column = pos.column + int(start + lead); // pos.column is where the text starts, 1-based
         if (pos.column == 0) at.column = 0;
-        if (item.empty()) fail(at, "empty chord note in " + terzo::quoted(text) + " (give degree numbers or ratios separated by commas)");
+        if (item.empty()) fail(at, "empty chord note in " + terzo::excerpt(text) + " (give degree numbers or ratios separated by commas)");
         if (notes.size() == max_chord_notes)
             fail(at, "a chord has at most " + std::to_string(max_chord_notes) + " notes");
         if (item.find('/') != std::string::npos) {
             Ratio r = parse_ratio(item, at);
-            if (r.sign() <= 0) fail(at, "chord ratio " + terzo::quoted(item) + " is not positive");
+            if (r.sign() <= 0) fail(at, "chord ratio " + terzo::excerpt(item) + " is not positive");
             notes.push_back(ratio_note(kb, r));
         } else {
             bool digits = std::all_of(item.begin(), item.end(), [](char c) { return c >= '0' && c <= '9'; });
             if (!digits)
-                fail(at, "chord note " + terzo::quoted(item) + " is neither a degree number nor a ratio p/q");
+                fail(at, "chord note " + terzo::excerpt(item) + " is neither a degree number nor a ratio p/q");
             if (item.size() > 9 || std::stoll(item) > max_degree)
-                fail(at, "degree " + (item.size() > 9 ? terzo::quoted(item) : item) + " is beyond the last allowed degree " + std::to_string(max_degree) +
+                fail(at, "degree " + (item.size() > 9 ? terzo::excerpt(item) : item) + " is beyond the last allowed degree " + std::to_string(max_degree) +
                              " (" + std::to_string(max_span + 1) + " periods of " + std::to_string(size) + " degrees)");
             long long n = std::stoll(item);
             notes.push_back(kb.note(int(n % size), int(n / size)));
@@ -74,7 +74,7 @@ std::vector<Note> parse_chord(const std::string& text, const Keyboard& kb, const
         if (comma == std::string::npos) break;
         start = comma + 1;
     }
-    if (notes.size() < 2) fail(pos, "a chord needs at least two notes, got " + terzo::quoted(text));
+    if (notes.size() < 2) fail(pos, "a chord needs at least two notes, got " + terzo::excerpt(text));
     return notes;
 }
 
@@ -146,11 +146,16 @@ CommonBass common_bass(const Keyboard& kb, const std::vector<Note>& chord, doubl
         const double f = lowest->hz / m;
         std::vector<double> mult;
         double mean = 0.0;
+        bool representable = true;
         for (const Note& n : chord) {
             double k = std::max(1.0, std::round(n.hz / f));
+            // A multiple beyond 2^53 is no longer an exact whole number in a double (and past
+            // 2^63 not a long long: found by fuzzing); no audible bass lies that far down.
+            if (k > 9007199254740992.0) representable = false;
             mult.push_back(k);
             mean += std::log2(n.hz / k);
         }
+        if (!representable) continue;
         mean /= double(chord.size());
         const double refined = std::exp2(mean);
         double worst = 0.0;

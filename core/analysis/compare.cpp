@@ -53,7 +53,7 @@ KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
         if (fields[1].first == "minor")
             key.minor = true;
         else if (fields[1].first != "major")
-            fail(mode_pos, "expected major or minor, found " + quoted(fields[1].first));
+            fail(mode_pos, "expected major or minor, found " + excerpt(fields[1].first));
         SourcePos weight_pos{source, line_no, fields[2].second};
         std::string_view text = fields[2].first;
         double value = 0;
@@ -61,7 +61,7 @@ KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
         if (ec != std::errc() || ptr != text.data() + text.size() || !std::isfinite(value) ||
             text.front() == '-' || text.front() == '+')
             fail(weight_pos,
-                 "expected a weight (a non-negative decimal number), found " + quoted(text));
+                 "expected a weight (a non-negative decimal number), found " + excerpt(text));
         if (value > max_key_weight)
             fail(weight_pos, "weight " + std::string(text) + " is larger than the limit 1000000");
         if (seen_on[static_cast<std::size_t>(key.index())] != 0)

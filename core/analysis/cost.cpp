@@ -53,7 +53,7 @@ double parse_number(std::string_view text, std::string_view what, const std::str
     auto [ptr, ec] = std::from_chars(text.data(), text.data() + text.size(), v);
     if (text.empty() || ec != std::errc() || ptr != text.data() + text.size() || !std::isfinite(v) ||
         text.front() == '+')
-        fail({source, 0, 0}, "expected " + std::string(what) + " (a decimal number), found " + quoted(text));
+        fail({source, 0, 0}, "expected " + std::string(what) + " (a decimal number), found " + excerpt(text));
     return v;
 }
 
@@ -61,7 +61,7 @@ KeyInterval parse_interval(std::string_view text, const std::string& source) {
     if (text == "fifth") return KeyInterval::fifth;
     if (text == "major-third") return KeyInterval::major_third;
     if (text == "minor-third") return KeyInterval::minor_third;
-    fail({source, 0, 0}, "expected fifth, major-third or minor-third, found " + quoted(text));
+    fail({source, 0, 0}, "expected fifth, major-third or minor-third, found " + excerpt(text));
 }
 
 } // namespace
@@ -69,13 +69,13 @@ KeyInterval parse_interval(std::string_view text, const std::string& source) {
 DeviationPart parse_deviation_part(std::string_view text, const std::string& source) {
     auto f = split(text, ':');
     if (f.size() < 2 || f.size() > 3)
-        fail({source, 0, 0}, "expected INTERVAL:STATISTIC[:WEIGHT] such as \"major-third:rms\", found " + quoted(text));
+        fail({source, 0, 0}, "expected INTERVAL:STATISTIC[:WEIGHT] such as \"major-third:rms\", found " + excerpt(text));
     DeviationPart p;
     p.interval = parse_interval(f[0], source);
     if (f[1] == "mean") p.statistic = Statistic::mean;
     else if (f[1] == "rms") p.statistic = Statistic::rms;
     else if (f[1] == "worst") p.statistic = Statistic::worst;
-    else fail({source, 0, 0}, "expected mean, rms or worst, found " + quoted(f[1]));
+    else fail({source, 0, 0}, "expected mean, rms or worst, found " + excerpt(f[1]));
     if (f.size() == 3) p.weight = parse_number(f[2], "a weight", source);
     return p;
 }
@@ -83,7 +83,7 @@ DeviationPart parse_deviation_part(std::string_view text, const std::string& sou
 BeatPart parse_beat_part(std::string_view text, const std::string& source) {
     auto f = split(text, ':');
     if (f.size() < 2 || f.size() > 3)
-        fail({source, 0, 0}, "expected INTERVAL:HZ[:WEIGHT] such as \"major-third:8\", found " + quoted(text));
+        fail({source, 0, 0}, "expected INTERVAL:HZ[:WEIGHT] such as \"major-third:8\", found " + excerpt(text));
     BeatPart p;
     p.interval = parse_interval(f[0], source);
     p.limit_hz = parse_number(f[1], "a beat rate in Hz", source);
@@ -94,14 +94,14 @@ BeatPart parse_beat_part(std::string_view text, const std::string& source) {
 FitPart parse_fit_part(std::string_view text, const std::string& source) {
     auto f = split(text, ':');
     if (f.size() > 2)
-        fail({source, 0, 0}, "expected SHAPE[:WEIGHT] such as \"0+4+7\", found " + quoted(text));
+        fail({source, 0, 0}, "expected SHAPE[:WEIGHT] such as \"0+4+7\", found " + excerpt(text));
     FitPart p;
     p.shape.clear();
     for (std::string_view s : split(f[0], '+')) {
         int v = 0;
         auto [ptr, ec] = std::from_chars(s.data(), s.data() + s.size(), v);
         if (s.empty() || ec != std::errc() || ptr != s.data() + s.size())
-            fail({source, 0, 0}, "expected semitones joined by '+' such as \"0+4+7\", found " + quoted(s));
+            fail({source, 0, 0}, "expected semitones joined by '+' such as \"0+4+7\", found " + excerpt(s));
         p.shape.push_back(v);
     }
     if (f.size() == 2) p.weight = parse_number(f[1], "a weight", source);

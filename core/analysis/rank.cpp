@@ -63,7 +63,7 @@ std::string rank_metric_names() {
 RankMetric parse_rank_metric(std::string_view text, const std::string& source) {
     for (RankMetric m : all_metrics)
         if (text == rank_metric_name(m)) return m;
-    fail({source, 0, 0}, "unknown metric " + quoted(text) + "; use one of " + rank_metric_names());
+    fail({source, 0, 0}, "unknown metric " + excerpt(text) + "; use one of " + rank_metric_names());
 }
 
 std::vector<std::string> collect_tunings(const std::vector<std::string>& arguments, std::vector<RankFailure>& failures) {

@@ -830,7 +830,7 @@ TargetInterval parse_target(const std::string& text, const std::string& source) 
         char* end = nullptr;
         double v = std::strtod(w.c_str(), &end);
         if (w.empty() || *end != '\0' || !std::isfinite(v) || v < 0 || v > max_part_weight)
-            fail({source, 1, static_cast<int>(star) + 2}, "expected a weight from 0 to 1000000 after '*', found " + terzo::quoted(w));
+            fail({source, 1, static_cast<int>(star) + 2}, "expected a weight from 0 to 1000000 after '*', found " + terzo::excerpt(w));
         t.weight = v;
         rest = rest.substr(0, star);
     }
@@ -840,12 +840,12 @@ TargetInterval parse_target(const std::string& text, const std::string& source) 
         char* end = nullptr;
         long v = std::strtol(g.c_str(), &end, 10);
         if (g.empty() || *end != '\0' || v < -max_chain_generators || v > max_chain_generators)
-            fail({source, 1, static_cast<int>(eq) + 2}, "expected a generator count from -200 to 200 after '=', found " + terzo::quoted(g));
+            fail({source, 1, static_cast<int>(eq) + 2}, "expected a generator count from -200 to 200 after '=', found " + terzo::excerpt(g));
         t.generators = static_cast<int>(v);
         rest = rest.substr(0, eq);
     }
     t.ratio = parse_ratio(rest, {source, 1, 1});
-    if (t.ratio <= Ratio(0)) fail({source, 1, 1}, "a target interval must be a positive ratio, found " + terzo::quoted(rest));
+    if (t.ratio <= Ratio(0)) fail({source, 1, 1}, "a target interval must be a positive ratio, found " + terzo::excerpt(rest));
     return t;
 }
 

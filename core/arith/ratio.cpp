@@ -226,13 +226,13 @@ namespace {
 // Digits only, at most int64; column points at the first character of the number.
 std::int64_t parse_integer(std::string_view digits, const SourcePos& pos,
                            std::string_view whole, const char* what) {
-    if (digits.empty()) fail(pos, "expected a " + std::string(what) + " in " + quoted(whole));
+    if (digits.empty()) fail(pos, "expected a " + std::string(what) + " in " + excerpt(whole));
     std::uint64_t v = 0;
     for (char c : digits) {
         if (c < '0' || c > '9')
-            fail(pos, "expected a ratio p/q or an integer, found " + quoted(whole));
+            fail(pos, "expected a ratio p/q or an integer, found " + excerpt(whole));
         if (v > (std::uint64_t(INT64_MAX) - (c - '0')) / 10)
-            fail(pos, "number too large in " + quoted(whole) +
+            fail(pos, "number too large in " + excerpt(whole) +
                           " (numerators and denominators are limited to 9223372036854775807)");
         v = v * 10 + std::uint64_t(c - '0');
     }
@@ -248,7 +248,7 @@ Ratio parse_ratio(std::string_view text, const SourcePos& pos) {
     std::int64_t den = 1;
     if (slash != std::string_view::npos) {
         den = parse_integer(body.substr(slash + 1), pos, text, "denominator");
-        if (den == 0) fail(pos, "denominator is zero in " + quoted(text));
+        if (den == 0) fail(pos, "denominator is zero in " + excerpt(text));
     }
     return Ratio(negative ? -num : num, den);
 }

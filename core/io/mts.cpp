@@ -175,7 +175,7 @@ EncodedOffsets<std::uint16_t> encode_offsets_2byte(const OctaveOffsets& o, const
 
 ChannelSet parse_channels(const std::string& text, const SourcePos& pos) {
     const std::string expected =
-        "expected channel numbers 1..16 such as 1,2,10 or 1-16, found " + terzo::quoted(text);
+        "expected channel numbers 1..16 such as 1,2,10 or 1-16, found " + terzo::excerpt(text);
     ChannelSet set = 0;
     std::istringstream in(text);
     std::string item;
@@ -210,14 +210,14 @@ std::string mts_name_from_description(std::string_view description) {
 
 std::array<std::uint8_t, 16> mts_name(std::string_view name, const SourcePos& pos) {
     if (name.size() > 16)
-        fail(pos, "tuning name " + terzo::quoted(name) + " has " + std::to_string(name.size()) +
+        fail(pos, "tuning name " + terzo::excerpt(name) + " has " + std::to_string(name.size()) +
                       " characters; the name field holds at most 16");
     std::array<std::uint8_t, 16> out;
     out.fill(' ');
     for (std::size_t i = 0; i < name.size(); ++i) {
         const auto c = static_cast<unsigned char>(name[i]);
         if (c < 0x20 || c > 0x7E)
-            fail(pos, "tuning name " + terzo::quoted(name) +
+            fail(pos, "tuning name " + terzo::excerpt(name) +
                           " has a character that is not printable ASCII at position " +
                           std::to_string(i + 1) + "; the name field holds plain ASCII only");
         out[i] = c;

@@ -53,7 +53,7 @@ std::optional<double> parse_cents(std::string_view t) {
 }
 
 Pitch parse_pitch(std::string_view token, const SourcePos& pos) {
-    const std::string q = quoted(token);
+    const std::string q = excerpt(token);
     if (token.find('.') != std::string_view::npos) {
         auto c = parse_cents(token);
         if (!c) fail(pos, "expected cents such as 701.955, found " + q);
@@ -98,7 +98,7 @@ Scale read_scl(std::istream& in, const std::string& source) {
     for (char c : count_token) {
         if (c < '0' || c > '9')
             fail(count_pos, "expected the note count (a whole number), found " +
-                                quoted(count_token));
+                                excerpt(count_token));
         count = count * 10 + std::size_t(c - '0');
         if (count > max_scale_size)
             fail(count_pos, "note count " + std::string(count_token.substr(0, 40)) + " is larger than " +

@@ -49,11 +49,11 @@ public:
     const Json& get(const std::string& key) {
         seen_.push_back(key);
         auto it = object_.find(key);
-        if (it == object_.end()) fail_here("missing key " + quoted(key) + in());
+        if (it == object_.end()) fail_here("missing key " + excerpt(key) + in());
         return *it;
     }
     std::string name(const std::string& key) const {
-        return quoted(path_.empty() ? key : path_ + "." + key);
+        return excerpt(path_.empty() ? key : path_ + "." + key);
     }
     double number(const std::string& key, double lo, double hi, bool lo_open = false) {
         const Json& v = get(key);
@@ -87,22 +87,22 @@ public:
     void no_other_keys() const {
         for (auto it = object_.begin(); it != object_.end(); ++it)
             if (std::find(seen_.begin(), seen_.end(), it.key()) == seen_.end())
-                fail_here("unknown key " + quoted(it.key()) + in());
+                fail_here("unknown key " + excerpt(it.key()) + in());
     }
     [[noreturn]] void fail_here(const std::string& message) const {
         fail({source_, 0, 0}, message);
     }
 
 private:
-    static std::string quoted(const std::string& s) { return "\"" + s + "\""; }
+    static std::string excerpt(const std::string& s) { return "\"" + s + "\""; }
     static std::string plain(double x) {
         std::string s = fixed(x, 3);
         while (s.back() == '0') s.pop_back();
         if (s.back() == '.') s.pop_back();
         return s;
     }
-    std::string where() const { return path_.empty() ? "the session" : quoted(path_); }
-    std::string in() const { return path_.empty() ? "" : " in " + quoted(path_); }
+    std::string where() const { return path_.empty() ? "the session" : excerpt(path_); }
+    std::string in() const { return path_.empty() ? "" : " in " + excerpt(path_); }
 
     const Json& object_;
     std::string path_;
@@ -206,6 +206,13 @@ Session read_session(std::istream& in, const std::string& source) {
         auto colon = what.find(": ", what.find("column"));
         std::string detail = colon == std::string::npos ? what : what.substr(colon + 2);
         fail({source, line, column}, "not valid JSON: " + detail);
+    } catch (const Json::out_of_range& e) {
+        // A number too large for a double ("1e999"): nlohmann reports it as out_of_range, with
+        // no position (found by fuzzing; the exception used to escape).
+        std::string what = e.what();
+        auto quote = what.find("parsing '");
+        std::string number = quote == std::string::npos ? "" : what.substr(quote + 9, what.size() - quote - 10);
+        fail({source, 0, 0}, "not valid JSON: the number " + excerpt(number) + " is too large");
     }
 
     Reader r(j, "", source);

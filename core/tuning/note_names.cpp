@@ -23,7 +23,7 @@ Spelled read_spelled(std::string_view text, const SourcePos& pos) {
     if (text.empty()) fail(pos, "expected a note name such as C, F# or Bb, found nothing");
     char l = text[0];
     if (l >= 'a' && l <= 'g') l = static_cast<char>(l - 'a' + 'A');
-    if (l < 'A' || l > 'G') fail(pos, "expected a note letter A to G in " + quoted(text));
+    if (l < 'A' || l > 'G') fail(pos, "expected a note letter A to G in " + excerpt(text));
     Spelled s{letter_pc[l - 'A'], 0, 1};
     for (;;) {
         if (s.used < text.size() && text[s.used] == '#') {
@@ -80,10 +80,10 @@ NoteName parse_note(std::string_view text, const SourcePos& pos, int default_oct
     if (!rest.empty()) {
         auto [ptr, ec] = std::from_chars(rest.data(), rest.data() + rest.size(), octave);
         if (ec != std::errc() || ptr != rest.data() + rest.size())
-            fail(pos, "expected an octave number after the note name in " + quoted(text));
+            fail(pos, "expected an octave number after the note name in " + excerpt(text));
     }
     if (octave < -1 || octave > 9)
-        fail(pos, "octave " + std::to_string(octave) + " in " + quoted(text) +
+        fail(pos, "octave " + std::to_string(octave) + " in " + excerpt(text) +
                       " is outside -1..9 (MIDI keys 0 to 127)");
     // The octave number belongs to the letter: Cb4 sounds as B3 and B#3 as C4.
     return note_of_key(12 * (octave + 1) + spelled.natural + spelled.accidentals);
@@ -92,14 +92,14 @@ NoteName parse_note(std::string_view text, const SourcePos& pos, int default_oct
 int parse_pitch_class(std::string_view text, const SourcePos& pos) {
     Spelled spelled = read_spelled(text, pos);
     if (spelled.used != text.size())
-        fail(pos, "expected a note name without octave such as C, F# or Bb, found " + quoted(text));
+        fail(pos, "expected a note name without octave such as C, F# or Bb, found " + excerpt(text));
     return spelled.pitch_class();
 }
 
 int parse_fifths_position(std::string_view text, const SourcePos& pos) {
     Spelled spelled = read_spelled(text, pos);
     if (spelled.used != text.size())
-        fail(pos, "expected a note name without octave such as C, F# or Bb, found " + quoted(text));
+        fail(pos, "expected a note name without octave such as C, F# or Bb, found " + excerpt(text));
     // The natural letters F C G D A E B sit at -1..5; 7*position = pitch class (mod 12).
     static const int natural_position[12] = {0, 0, 2, 0, 4, -1, 0, 1, 0, 3, 0, 5};
     return natural_position[spelled.natural] + 7 * spelled.accidentals;
@@ -118,13 +118,13 @@ Spelling parse_spelling(std::string_view text, const SourcePos& pos) {
     if (text == "sharps") return Spelling::sharps;
     if (text == "flats") return Spelling::flats;
     if (text == "mixed") return Spelling::mixed;
-    fail(pos, "unknown spelling " + quoted(text) + "; use sharps, flats or mixed");
+    fail(pos, "unknown spelling " + excerpt(text) + "; use sharps, flats or mixed");
 }
 
 PitchReference parse_pitch_reference(std::string_view text, const SourcePos& pos) {
     auto eq = text.find('=');
     if (eq == std::string_view::npos)
-        fail(pos, "expected NOTE=HZ such as A4=415, found " + quoted(text));
+        fail(pos, "expected NOTE=HZ such as A4=415, found " + excerpt(text));
     auto strip = [](std::string_view s) {
         while (!s.empty() && s.front() == ' ') s.remove_prefix(1);
         while (!s.empty() && s.back() == ' ') s.remove_suffix(1);
@@ -136,9 +136,9 @@ PitchReference parse_pitch_reference(std::string_view text, const SourcePos& pos
     double hz = 0;
     auto [ptr, ec] = std::from_chars(hz_part.data(), hz_part.data() + hz_part.size(), hz);
     if (ec != std::errc() || ptr != hz_part.data() + hz_part.size() || hz_part.empty())
-        fail(pos, "expected a frequency in Hz after '=' in " + quoted(text));
+        fail(pos, "expected a frequency in Hz after '=' in " + excerpt(text));
     if (!std::isfinite(hz) || hz <= 0 || hz > 20000)
-        fail(pos, "frequency " + std::string(hz_part) + " Hz in " + quoted(text) +
+        fail(pos, "frequency " + std::string(hz_part) + " Hz in " + excerpt(text) +
                       " is outside the accepted range (above 0, at most 20000 Hz)");
     ref.hz = hz;
     return ref;
