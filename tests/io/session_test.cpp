@@ -210,3 +210,10 @@ TEST_CASE("settings outside their ranges are rejected by check_settings", "[sess
     REQUIRE_THROWS_WITH(check_settings(s, "x"),
                         "x: error: combination-tone order 1 is outside 2 to 12");
 }
+
+TEST_CASE("a number too large for a double is rejected, not thrown through", "[session]") {
+    // Regression: found by fuzzing (tests/fuzz/session/regression_number_too_large.json).
+    std::istringstream in(R"({"format": "terzo-session", "version": 1e999})");
+    CHECK_THROWS_WITH(read_session(in, "s.json"),
+                      "s.json: error: not valid JSON: the number \"1e999\" is too large");
+}
