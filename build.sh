@@ -90,7 +90,8 @@ case "$ACTION" in
       name=$(basename "$exe"); name=${name#fuzz_}
       work="$BUILD_DIR-fuzz/corpus/$name"; mkdir -p "$work" "$BUILD_DIR-fuzz/crashes"
       echo "build.sh: fuzzing $name for $seconds s"
-      "$exe" -max_total_time="$seconds" -max_len=4096 -timeout=10 -rss_limit_mb=2048 \
+      # A fixed seed makes a CI run repeatable; set TERZO_FUZZ_SEED=0 for a new one each run.
+      "$exe" -seed="${TERZO_FUZZ_SEED:-1}" -max_total_time="$seconds" -max_len=4096 -timeout=10 -rss_limit_mb=2048 \
         -artifact_prefix="$BUILD_DIR-fuzz/crashes/$name-" -print_final_stats=1 \
         "$work" "tests/fuzz/$name" 2>&1 | grep -E "DONE|stat::number_of_executed_units|stat::new_units_added|==[0-9]+==|SUMMARY|ERROR" || true
       if ls "$BUILD_DIR-fuzz/crashes/$name-"* >/dev/null 2>&1; then
