@@ -2,25 +2,17 @@
 
 #include <catch2/catch.hpp>
 
-#include <sstream>
 
-#include "core/io/scl.hpp"
+#include "tests/support/scales.hpp"
 
 using namespace terzo;
 using Catch::Matchers::WithinAbs;
 
 namespace {
 
-Scale edo(int n) {
-    std::vector<Pitch> d;
-    for (int k = 1; k < n; ++k) d.push_back(Pitch::from_vector(PrimeVector::prime_power(2, Ratio(k, n))));
-    return Scale(std::to_string(n) + " equal", d, Pitch::from_ratio(Ratio(2)));
-}
+using test::equal_division;
 
-Scale demo() {
-    std::istringstream in("demo\n 8\n 9/8\n 5/4\n 4/3\n 3/2\n 5/3\n 7/4\n 15/8\n 2/1\n");
-    return read_scl(in, "demo.scl");
-}
+Scale demo() { return test::scl_text("demo\n 8\n 9/8\n 5/4\n 4/3\n 3/2\n 5/3\n 7/4\n 15/8\n 2/1\n"); }
 
 ToneOptions order(int n) {
     ToneOptions o;
@@ -63,7 +55,7 @@ TEST_CASE("the worst landing of a tempered third is its difference tone", "[dyad
     // REFERENCES.md 5.2 [C]: for the 12-TET third C4-E4, f2 - f1 = 68.0020 Hz, 67.374 c above
     // C2, so 32.626 c below the nearest 12-TET note (C#2). The summation tone 591.2531 Hz lands
     // 11.527 c above D5; at order 2 these are the only tones.
-    Keyboard kb(edo(12), 261.6255653, 1);
+    Keyboard kb(equal_division(12), 261.6255653, 1);
     const auto cells = dyad_grid(kb, order(2));
     const DyadCell& third = cells[4];
     CHECK(third.low_degree == 0);
@@ -73,10 +65,10 @@ TEST_CASE("the worst landing of a tempered third is its difference tone", "[dyad
 }
 
 TEST_CASE("the grid refuses tunings above its size limit", "[dyad_grid]") {
-    Keyboard kb(edo(129), 261.6255653, 1);
+    Keyboard kb(equal_division(129), 261.6255653, 1);
     REQUIRE_THROWS_WITH(dyad_grid(kb, order(2)),
                         "dyad grid: error: the tuning has 129 degrees; the dyad grid shows at most 128");
-    Keyboard ok(edo(128), 261.6255653, 1);
+    Keyboard ok(equal_division(128), 261.6255653, 1);
     CHECK(dyad_grid(ok, order(2)).size() == 128u * 128u);
 }
 
