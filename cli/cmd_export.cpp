@@ -6,6 +6,7 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
+#include "cli/output_file.hpp"
 #include "core/io/atomic_file.hpp"
 #include "core/io/format.hpp"
 #include "core/io/frequency_table.hpp"
@@ -216,12 +217,8 @@ void run_export(const ExportOptions& o, std::ostream& report) {
                 fail({outputs[i].option, 0, 0},
                      "\"" + outputs[i].path + "\" is also the file of " + outputs[j].option +
                          "; give each output its own file (no file was written)");
-        std::error_code ec;
-        if (!o.force && std::filesystem::exists(p, ec))
-            fail({outputs[i].path, 0, 0}, "already exists and was not changed; give --force to "
-                                          "replace it (no file was written)");
         try {
-            check_target(outputs[i].path, Overwrite::allow);
+            check_output_file(outputs[i].path, o.force);
         } catch (const InputError& e) {
             fail(e.pos(), e.message() + " (no file was written)");
         }

@@ -2,6 +2,7 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
+#include "cli/output_file.hpp"
 #include "core/error.hpp"
 #include "core/io/format.hpp"
 #include "core/io/table.hpp"
@@ -120,6 +121,7 @@ void add_render(CLI::App& app) {
                  terzo::excerpt(o->sample_format) + " is not a sample format; use int16 or float32");
         const std::vector<int> notes = parse_notes(o->notes);
         check_render_settings(s, notes.size());
+        check_output_file(o->out, o->force);
         const Scale scale = load_tuning(o->tuning);
         const std::vector<double> samples = render(scale, notes, s);
         const std::vector<double> hz = note_frequencies(scale, notes, s.ref_hz);

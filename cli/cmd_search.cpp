@@ -6,6 +6,7 @@
 #include <nlohmann/json.hpp>
 
 #include "cli/commands.hpp"
+#include "cli/output_file.hpp"
 #include "cli/interrupt.hpp"
 #include "core/analysis/search.hpp"
 #include "core/io/atomic_file.hpp"
@@ -116,8 +117,7 @@ std::vector<std::string> write_scales(const std::string& dir, const std::string&
     for (std::size_t i = 0; i < scales.size(); ++i) {
         std::string n = std::to_string(i + 1);
         paths.push_back(fs::path(dir) / (stem + "-" + std::string(n.size() < 2 ? 2 - n.size() : 0, '0') + n + ".scl"));
-        if (!force && fs::exists(paths.back()))
-            fail({paths.back().string(), 0, 0}, "the file exists; pass --force to replace it");
+        check_output_file(paths.back(), force);
     }
     std::vector<std::string> written;
     for (std::size_t i = 0; i < scales.size(); ++i) {

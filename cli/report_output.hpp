@@ -13,6 +13,7 @@
 #include "core/error.hpp"
 #include "core/io/atomic_file.hpp"
 #include "core/io/table.hpp"
+#include "cli/output_file.hpp"
 
 namespace terzo::cli {
 
@@ -55,9 +56,7 @@ inline void write_part(std::ostream& out, const ReportOutput& o, const std::stri
 /// Refuses early, before any work, an --svg file that exists when --force is not given (the
 /// atomic write checks again when it replaces the file).
 inline void check_svg_target(const ReportOutput& o) {
-    std::error_code ec;
-    if (!o.svg.empty() && !o.force && std::filesystem::exists(o.svg, ec))
-        fail({o.svg, 0, 0}, "already exists and was not changed; give --force to replace it");
+    if (!o.svg.empty()) check_output_file(o.svg, o.force);
 }
 
 /// Writes the SVG file when one was asked for.

@@ -35,7 +35,7 @@ TEST_CASE("terzo search --json and --write-scl give the same results, and files 
     auto again = run_terzo(args);
     CHECK(again.status == 1);
     CHECK(again.out.empty());
-    CHECK(again.err == (dir / "circulating-01.scl").string() + ": error: the file exists; pass --force to replace it\n");
+    CHECK(again.err == (dir / "circulating-01.scl").string() + ": error: already exists and was not changed; give --force to replace it\n");
     auto forced = run_terzo(args + " --force");
     CHECK(forced.status == 0);
     CHECK(forced.out.find("wrote 3 .scl files to " + dir.string() + "\n") != std::string::npos);
