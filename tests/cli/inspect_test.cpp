@@ -34,7 +34,7 @@ TEST_CASE("terzo inspect --json prints one object with the documented keys", "[i
 TEST_CASE("terzo inspect reports a malformed file on stderr with a non-zero exit", "[inspect]") {
     auto dir = terzo::test::temp_folder("inspect-bad");
     std::string bad = (dir / "bad.scl").string();
-    std::system(("printf 'broken\\n 2\\n 3/0\\n 2/1\\n' > " + bad).c_str());
+    std::ofstream(bad) << "broken\n 2\n 3/0\n 2/1\n";
     auto r = run_terzo("inspect " + bad);
     CHECK(r.status == 1);
     CHECK(r.out.empty());

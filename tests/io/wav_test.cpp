@@ -12,34 +12,12 @@
 
 #include "core/error.hpp"
 #include "core/io/wav.hpp"
+#include "tests/support/run.hpp"
 
 using namespace terzo;
 namespace fs = std::filesystem;
 
 namespace {
-
-// A fresh folder under the system's temporary folder, removed at the end of the test.
-struct TempDir {
-    fs::path path;
-    TempDir() {
-        std::string t = (fs::temp_directory_path() / "terzo-wav-XXXXXX").string();
-        path = ::mkdtemp(t.data());
-    }
-    ~TempDir() { fs::remove_all(path); }
-};
-
-// Runs a shell command and returns its standard output (the test fails on a non-zero exit).
-std::string run(const std::string& command, const fs::path& out_file) {
-    const int rc = std::system((command + " > '" + out_file.string() + "'").c_str());
-    REQUIRE(rc == 0);
-    std::ifstream in(out_file);
-    std::stringstream s;
-    s << in.rdbuf();
-    std::string text = s.str();
-    while (!text.empty() && (text.back() == '\n' || text.back() == ' '))
-        text.pop_back();
-    return text;
-}
 
 std::vector<double> test_signal(std::size_t n) {
     std::vector<double> x(n);
@@ -52,7 +30,7 @@ std::vector<double> test_signal(std::size_t n) {
 
 TEST_CASE("a 16-bit WAV file reads back in Python's wave module with the same header and samples",
           "[wav]") {
-    TempDir dir;
+    test::ScratchFolder dir("wav");
     const fs::path file = dir.path / "tone.wav";
     std::vector<double> x = test_signal(1000);
     x[1] = 1.5;  // clipped to the largest value
@@ -69,7 +47,7 @@ TEST_CASE("a 16-bit WAV file reads back in Python's wave module with the same he
                            "w.getcomptype(), s[0], s[1], s[2], s[3], s[10])\n";
     std::ofstream(dir.path / "read.py") << py;
     const std::string got =
-        run("python3 '" + (dir.path / "read.py").string() + "'", dir.path / "out.txt");
+        test::output_of("python3 '" + (dir.path / "read.py").string() + "'");
     // Expected sample values: x * 32768 rounded to nearest (not at a half here, so lround
     // agrees); 0.25 becomes 8192 and clipping pins +-1.5 to 32767 and -32768.
     const long s10 = std::lround(0.5 * std::sin(2 * M_PI * 440.0 * 10 / 44100.0) * 32768.0);
@@ -77,12 +55,11 @@ TEST_CASE("a 16-bit WAV file reads back in Python's wave module with the same he
 }
 
 TEST_CASE("a float WAV file reads back in sox with the same header", "[wav]") {
-    TempDir dir;
+    test::ScratchFolder dir("wav");
     const fs::path file = dir.path / "tone.wav";
     write_wav(file, test_signal(4800), WavFormat{48000, SampleFormat::float32});
     const auto field = [&](const char* flag) {
-        return run(std::string("sox --i ") + flag + " '" + file.string() + "'",
-                   dir.path / "out.txt");
+        return test::output_of(std::string("sox --i ") + flag + " '" + file.string() + "'");
     };
     CHECK(field("-c") == "1");
     CHECK(field("-r") == "48000");
@@ -93,14 +70,14 @@ TEST_CASE("a float WAV file reads back in sox with the same header", "[wav]") {
 }
 
 TEST_CASE("sox reads a 16-bit file's header the same way", "[wav]") {
-    TempDir dir;
+    test::ScratchFolder dir("wav");
     const fs::path file = dir.path / "tone.wav";
     write_wav(file, test_signal(44100), WavFormat{44100, SampleFormat::int16});
-    CHECK(run("sox --i -r '" + file.string() + "'", dir.path / "o") == "44100");
-    CHECK(run("sox --i -s '" + file.string() + "'", dir.path / "o") == "44100");
-    CHECK(run("sox --i -e '" + file.string() + "'", dir.path / "o") == "Signed Integer PCM");
-    CHECK(run("sox --i -b '" + file.string() + "'", dir.path / "o") == "16");
-    CHECK(run("sox --i -D '" + file.string() + "'", dir.path / "o") == "1.000000");
+    CHECK(test::output_of("sox --i -r '" + file.string() + "'") == "44100");
+    CHECK(test::output_of("sox --i -s '" + file.string() + "'") == "44100");
+    CHECK(test::output_of("sox --i -e '" + file.string() + "'") == "Signed Integer PCM");
+    CHECK(test::output_of("sox --i -b '" + file.string() + "'") == "16");
+    CHECK(test::output_of("sox --i -D '" + file.string() + "'") == "1.000000");
 }
 
 TEST_CASE("encoding the same samples twice gives the same bytes", "[wav]") {
@@ -115,7 +92,7 @@ TEST_CASE("encoding the same samples twice gives the same bytes", "[wav]") {
 }
 
 TEST_CASE("a WAV file is not overwritten unless asked", "[wav]") {
-    TempDir dir;
+    test::ScratchFolder dir("wav");
     const fs::path file = dir.path / "tone.wav";
     write_wav(file, test_signal(100), WavFormat{});
     const auto size = fs::file_size(file);

@@ -16,6 +16,7 @@
 #include "core/sound/level.hpp"
 #include "core/sound/render.hpp"
 #include "tests/sound/spectrum.hpp"
+#include "tests/support/run.hpp"
 
 using namespace terzo;
 namespace fs = std::filesystem;
@@ -32,37 +33,6 @@ RenderSettings short_settings(Model m) {
     s.seconds = 0.5;
     s.model = m;
     return s;
-}
-
-struct TempDir {
-    fs::path path;
-    TempDir() {
-        std::string t = (fs::temp_directory_path() / "terzo-render-XXXXXX").string();
-        path = ::mkdtemp(t.data());
-    }
-    ~TempDir() { fs::remove_all(path); }
-};
-
-struct Run {
-    int status;
-    std::string out, err;
-};
-
-Run shell(const std::string& command, const fs::path& dir) {
-    const fs::path o = dir / "stdout.txt", e = dir / "stderr.txt";
-    const int rc =
-        std::system((command + " > '" + o.string() + "' 2> '" + e.string() + "'").c_str());
-    auto slurp = [](const fs::path& p) {
-        std::ifstream in(p);
-        std::stringstream s;
-        s << in.rdbuf();
-        return s.str();
-    };
-    return {WIFEXITED(rc) ? WEXITSTATUS(rc) : -1, slurp(o), slurp(e)};
-}
-
-Run run_cli(const std::string& args, const fs::path& dir) {
-    return shell(std::string("'") + TERZO_CLI + "' " + args, dir);
 }
 
 } // namespace
@@ -289,13 +259,13 @@ TEST_CASE("model names read and print the same way", "[render]") {
 
 TEST_CASE("terzo render writes a WAV file, refuses to overwrite it and names bad options",
           "[render]") {
-    TempDir dir;
+    test::ScratchFolder dir("render");
     const fs::path scl = dir.path / "third.scl";
     std::ofstream(scl) << "! third.scl\nA just third and fifth\n 3\n5/4\n3/2\n2/1\n";
     const std::string wav = (dir.path / "chord.wav").string();
     const std::string base = "render '" + scl.string() + "' --out '" + wav + "' ";
 
-    Run r = run_cli(base + "--notes 0,1,2 --seconds 1 --sample-rate 44100", dir.path);
+    test::RunResult r = test::run_terzo(base + "--notes 0,1,2 --seconds 1 --sample-rate 44100");
     REQUIRE(r.status == 0);
     CHECK(r.err.empty());
     CHECK(r.out == "wrote " + wav +
@@ -308,24 +278,23 @@ TEST_CASE("terzo render writes a WAV file, refuses to overwrite it and names bad
                        "   2  392.438\n\n" +
                        std::string(hearing_caution()) + "\n");
     // The header as sox reads it: 44.1 kHz, mono, one second of samples, 16-bit.
-    CHECK(shell("sox --i -r '" + wav + "'", dir.path).out == "44100\n");
-    CHECK(shell("sox --i -c '" + wav + "'", dir.path).out == "1\n");
-    CHECK(shell("sox --i -s '" + wav + "'", dir.path).out == "44100\n");
-    CHECK(shell("sox --i -b '" + wav + "'", dir.path).out == "16\n");
+    CHECK(test::run("sox --i -r '" + wav + "'").out == "44100\n");
+    CHECK(test::run("sox --i -c '" + wav + "'").out == "1\n");
+    CHECK(test::run("sox --i -s '" + wav + "'").out == "44100\n");
+    CHECK(test::run("sox --i -b '" + wav + "'").out == "16\n");
 
     SECTION("an existing file is kept without --force and replaced with it") {
         const auto before = fs::file_size(wav);
-        r = run_cli(base + "--notes 0,1 --seconds 2", dir.path);
+        r = test::run_terzo(base + "--notes 0,1 --seconds 2");
         CHECK(r.status == 1);
         CHECK(r.out.empty());
         CHECK(
             r.err ==
             wav +
-                ": error: already exists and was not changed (allow overwriting to replace it)\n");
+                ": error: already exists and was not changed; give --force to replace it\n");
         CHECK(fs::file_size(wav) == before);
-        r = run_cli(
-            base + "--notes 0,1 --seconds 2 --force --model oscillator --sample-format float32",
-            dir.path);
+        r = test::run_terzo(
+            base + "--notes 0,1 --seconds 2 --force --model oscillator --sample-format float32");
         CHECK(r.status == 0);
         CHECK(fs::file_size(wav) > before);
     }
@@ -333,14 +302,13 @@ TEST_CASE("terzo render writes a WAV file, refuses to overwrite it and names bad
         for (const std::string model : {"none", "poly", "oscillator", "predicted"}) {
             for (const std::string format : {"int16", "float32"}) {
                 const std::string f = (dir.path / (model + "-" + format + ".wav")).string();
-                r = run_cli("render '" + scl.string() + "' --notes 0,1,2 --seconds 0.5 --model " +
-                                model + " --sample-format " + format + " --out '" + f + "'",
-                            dir.path);
+                r = test::run_terzo("render '" + scl.string() + "' --notes 0,1,2 --seconds 0.5 --model " +
+                                model + " --sample-format " + format + " --out '" + f + "'");
                 INFO(model << " " << format);
                 CHECK(r.status == 0);
-                CHECK(shell("sox --i -s '" + f + "'", dir.path).out == "24000\n");
-                CHECK(shell("sox --i -r '" + f + "'", dir.path).out == "48000\n");
-                CHECK(shell("sox --i -e '" + f + "'", dir.path).out ==
+                CHECK(test::run("sox --i -s '" + f + "'").out == "24000\n");
+                CHECK(test::run("sox --i -r '" + f + "'").out == "48000\n");
+                CHECK(test::run("sox --i -e '" + f + "'").out ==
                       (format == "int16" ? "Signed Integer PCM\n" : "Floating Point PCM\n"));
             }
         }
@@ -349,7 +317,7 @@ TEST_CASE("terzo render writes a WAV file, refuses to overwrite it and names bad
         const std::string other = (dir.path / "other.wav").string();
         const std::string b2 = "render '" + scl.string() + "' --out '" + other + "' ";
         auto rejects = [&](const std::string& args, const std::string& err) {
-            Run bad = run_cli(b2 + args, dir.path);
+            test::RunResult bad = test::run_terzo(b2 + args);
             CHECK(bad.status == 1);
             CHECK(bad.out.empty());
             CHECK(bad.err == err + "\n");

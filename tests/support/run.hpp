@@ -7,6 +7,7 @@
 #include <fstream>
 #include <sstream>
 #include <string>
+#include <system_error>
 
 #include <sys/wait.h>
 #include <unistd.h>
@@ -60,6 +61,36 @@ inline std::filesystem::path temp_folder(const std::string& name) {
     std::filesystem::remove_all(dir);
     std::filesystem::create_directories(dir);
     return dir;
+}
+
+/// A fresh temporary folder that is removed, with what it holds, when the object goes out of
+/// scope. Each object has its own folder, also within one process.
+class ScratchFolder {
+public:
+    explicit ScratchFolder(const std::string& name) : path(temp_folder(name + "-" + std::to_string(next_number()))) {}
+    ~ScratchFolder() {
+        std::error_code ec;
+        std::filesystem::remove_all(path, ec);
+    }
+    ScratchFolder(const ScratchFolder&) = delete;
+    ScratchFolder& operator=(const ScratchFolder&) = delete;
+
+    const std::filesystem::path path;
+
+private:
+    static int next_number() {
+        static int n = 0;
+        return ++n;
+    }
+};
+
+/// Standard output of a command that must succeed, without the trailing newlines and spaces;
+/// the output is empty and the failure is visible in the returned text when it does not.
+inline std::string output_of(const std::string& command) {
+    RunResult r = run(command);
+    if (r.status != 0) return "(exit status " + std::to_string(r.status) + ": " + r.err + ")";
+    while (!r.out.empty() && (r.out.back() == '\n' || r.out.back() == ' ')) r.out.pop_back();
+    return r.out;
 }
 
 } // namespace terzo::test
