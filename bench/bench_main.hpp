@@ -5,6 +5,8 @@
 
 #include <benchmark/benchmark.h>
 
+#include "bench/steal.hpp"
+
 #include <cstdio>
 #include <map>
 #include <string>
@@ -30,7 +32,9 @@ public:
 inline int run_with_ratios(int argc, char** argv, const std::vector<RatioSpec>& ratios) {
     benchmark::Initialize(&argc, argv);
     CollectingReporter reporter;
+    const CpuTicks before = machine_cpu_ticks();
     benchmark::RunSpecifiedBenchmarks(&reporter);
+    print_steal_since(before);
     std::printf("\nratios (same run, CPU time per iteration):\n");
     for (const auto& r : ratios) {
         auto a = reporter.cpu_ns.find(r.numerator), b = reporter.cpu_ns.find(r.denominator);

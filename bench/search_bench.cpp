@@ -1,7 +1,8 @@
 // Search and ranking throughput.
 // - Exhaustive circulating search, every candidate evaluated (no symmetry removal, no
 //   pruning), on 1 and 2 threads: candidates per second and the parallel speedup (wall-clock
-//   time); and the default search (symmetry removal and pruning) against it.
+//   time), beside the speedup of independent loops that share nothing (what the machine
+//   gives at that moment); and the default search (symmetry removal and pruning) against it.
 // - The search's running sums against evaluating each candidate from scratch (positions ->
 //   deviations -> statistics, in doubles), per candidate; and against the exact route (the
 //   fifth-circle recipe and the key comparison) for a sample.
@@ -14,6 +15,7 @@
 #include <iomanip>
 #include <random>
 #include <sstream>
+#include <thread>
 
 #include "core/analysis/compare.hpp"
 #include "core/analysis/rank.hpp"
@@ -61,6 +63,27 @@ void exhaustive(benchmark::State& state) {
     state.counters["candidates/cpu_s"] = static_cast<double>(n) / cpu;
 }
 BENCHMARK(exhaustive)->Arg(1)->Arg(2)->UseRealTime()->Unit(benchmark::kMillisecond)->MinTime(2.0);
+
+/// The machine's own ceiling: the same wall-clock work split into independent arithmetic
+/// loops that share nothing, on 1 and 2 threads. On a shared machine another process's load
+/// lowers this figure too, so the search's speedup is read against it.
+void independent_loops(benchmark::State& state) {
+    const int threads = static_cast<int>(state.range(0));
+    const long total = 300'000'000;
+    for (auto _ : state) {
+        std::vector<std::thread> pool;
+        std::vector<double> sums(static_cast<std::size_t>(threads) * 8); // one cache line apart
+        for (int t = 0; t < threads; ++t)
+            pool.emplace_back([&, t] {
+                double x = 0;
+                for (long i = 0; i < total / threads; ++i) x += std::sqrt(static_cast<double>(i) * 1.0001);
+                sums[static_cast<std::size_t>(t) * 8] = x;
+            });
+        for (auto& th : pool) th.join();
+        benchmark::DoNotOptimize(sums);
+    }
+}
+BENCHMARK(independent_loops)->Arg(1)->Arg(2)->UseRealTime()->Unit(benchmark::kMillisecond)->MinTime(1.0);
 
 void exhaustive_with_symmetry(benchmark::State& state) {
     CostModel m = bench_cost();
@@ -243,7 +266,9 @@ public:
 int main(int argc, char** argv) {
     benchmark::Initialize(&argc, argv);
     WallReporter rep;
+    const terzo::bench::CpuTicks before = terzo::bench::machine_cpu_ticks();
     benchmark::RunSpecifiedBenchmarks(&rep);
+    terzo::bench::print_steal_since(before);
     auto ratio = [&](const char* label, const std::map<std::string, double>& m, const std::string& a, const std::string& b,
                      double scale) {
         auto x = m.find(a), y = m.find(b);
@@ -256,6 +281,8 @@ int main(int argc, char** argv) {
     std::printf("\nratios (same run):\n");
     ratio("exhaustive speedup, 2 threads over 1 (wall clock)", rep.real_ns, "exhaustive/1/min_time:2.000/real_time",
           "exhaustive/2/min_time:2.000/real_time", 1);
+    ratio("independent loops speedup, 2 threads over 1 (the machine)", rep.real_ns, "independent_loops/1/min_time:1.000/real_time",
+          "independent_loops/2/min_time:1.000/real_time", 1);
     ratio("symmetry removal speedup (wall clock, 1 thread)", rep.real_ns, "exhaustive/1/min_time:2.000/real_time",
           "exhaustive_with_symmetry/min_time:1.000/real_time", 1);
     ratio("symmetry and pruning (the default) speedup (wall, 1 thread)", rep.real_ns, "exhaustive/1/min_time:2.000/real_time",
