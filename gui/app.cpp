@@ -3,8 +3,12 @@
 #include <algorithm>
 #include <cstdlib>
 
+#include <pthread.h>
+#include <sched.h>
+
 #include "core/error.hpp"
 #include "core/tuning/load.hpp"
+#include "core/tuning/recipe.hpp"
 
 namespace terzo::gui {
 
@@ -32,6 +36,10 @@ const SessionTuning* current_tuning(const App& app) {
     const auto& t = app.session.tunings;
     if (t.empty()) return nullptr;
     return &t[static_cast<std::size_t>(std::clamp<int>(app.session.current, 0, int(t.size()) - 1))];
+}
+
+std::string tuning_label(const std::string& source) {
+    return starts_like_recipe(source) ? source : std::filesystem::path(source).filename().string();
 }
 
 bool open_tuning(App& app, const std::string& argument) {
@@ -112,6 +120,11 @@ void poll_background(App& app) {
         b.wanted = false;
         b.job = std::async(std::launch::async, [kb = *app.analysis.keyboard, options = tone_options(app.session.settings),
                                                 generation = b.generation] {
+            // The whole-keyboard fit only uses time the window does not need: at idle
+            // priority, drawing (and software OpenGL's threads) go first while a setting is
+            // being dragged, and the fit catches up when the user pauses.
+            sched_param idle{};
+            pthread_setschedparam(pthread_self(), SCHED_IDLE, &idle);
             BackgroundFit::Result r;
             r.generation = generation;
             auto t0 = std::chrono::steady_clock::now();
@@ -196,7 +209,7 @@ void refresh(App& app) {
         for (std::size_t i = 0; i < n; ++i) {
             const SessionTuning& st = app.session.tunings[i];
             ComparedTuning c;
-            c.name = st.source;
+            c.name = tuning_label(st.source);
             c.description = st.scale.description();
             c.size = st.scale.size();
             if (st.scale.size() == 12) c.keys = compare_keys(st.scale, copt, st.source);
@@ -208,7 +221,7 @@ void refresh(App& app) {
             sopt.reference = copt.reference;
             a.sheet = make_sheet(t->scale, sopt, t->source);
         } else {
-            a.sheet_error = "The tuner's sheet is for 12-note tunings; " + t->source + " has " +
+            a.sheet_error = "The tuner's sheet is for 12-note tunings; " + tuning_label(t->source) + " has " +
                             std::to_string(t->scale.size()) + " degrees.";
         }
     } catch (const InputError& e) {

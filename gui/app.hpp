@@ -96,6 +96,9 @@ struct App {
 
 /// The current tuning, if any is open.
 const SessionTuning* current_tuning(const App& app);
+/// How a tuning is named on screen: a file by its name (the full path is in the tooltip),
+/// a recipe by its text (a recipe may contain '/').
+std::string tuning_label(const std::string& source);
 /// Opens a tuning argument (a .scl path) and makes it current; errors go to app.error.
 bool open_tuning(App& app, const std::string& argument);
 /// Closes the current tuning.

@@ -10,6 +10,9 @@ namespace terzo::gui {
 inline constexpr ImU32 node_colour = IM_COL32(70, 130, 200, 255);
 inline constexpr ImU32 node_selected_colour = IM_COL32(235, 140, 50, 255);
 inline constexpr ImU32 canvas_colour = IM_COL32(22, 24, 30, 255);
+/// Background of the panes. The window is cleared to it and the tiled panes draw no
+/// background of their own (see begin_pane in layout.cpp).
+inline constexpr ImU32 pane_colour = IM_COL32(28, 31, 36, 255);
 inline constexpr ImU32 exact_colour = IM_COL32(120, 230, 255, 255);
 
 /// The deviation scale: proven exact is ice blue; otherwise |deviation| runs green (0) ->

@@ -27,9 +27,7 @@ void draw_tunings_panel(App& app) {
     ImGui::EndDisabled();
     ImGui::BeginChild("open_tunings", ImVec2(0, std::min(5, std::max<int>(1, int(tunings.size()))) * ImGui::GetTextLineHeightWithSpacing() + 8), true);
     for (std::size_t i = 0; i < tunings.size(); ++i) {
-        // Files by their name, recipes by their text (a recipe may contain '/').
-        const std::string& src = tunings[i].source;
-        std::string name = (starts_like_recipe(src) ? src : std::filesystem::path(src).filename().string()) + "##" + std::to_string(i);
+        std::string name = tuning_label(tunings[i].source) + "##" + std::to_string(i);
         if (ImGui::Selectable(name.c_str(), static_cast<int>(i) == app.session.current)) switch_tuning(app, static_cast<int>(i));
         if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s\n%s", tunings[i].source.c_str(), tunings[i].scale.description().c_str());
     }

@@ -7,6 +7,7 @@
 
 #include "core/io/format.hpp"
 #include "gui/colours.hpp"
+#include "gui/gl_render.hpp"
 #include "gui/views.hpp"
 
 namespace terzo::gui {
@@ -82,7 +83,7 @@ void draw_lattice_view(App& app) {
 
     const ImVec2 p1(p0.x + size.x, p0.y + size.y);
     dl->PushClipRect(p0, p1, true);
-    dl->AddRectFilled(p0, p1, canvas_colour);
+    add_clear_fill(dl, canvas_colour);
     const SessionTuning* tuning = current_tuning(app);
     const Analysis& a = app.analysis;
     if (!tuning || !a.keyboard) {

@@ -1,0 +1,57 @@
+#include "gui/gl_render.hpp"
+
+#include <cmath>
+#include <cstdint>
+
+#include <SFML/OpenGL.hpp>
+#include <backends/imgui_impl_opengl2.h>
+
+namespace terzo::gui {
+
+namespace {
+
+void set_clear_colour(ImU32 c) {
+    auto channel = [c](int shift) { return static_cast<float>((c >> shift) & 0xFF) / 255.0f; };
+    glClearColor(channel(IM_COL32_R_SHIFT), channel(IM_COL32_G_SHIFT), channel(IM_COL32_B_SHIFT), 1.0f);
+}
+
+/// ImGui calls this in draw order with the clip rectangle in effect when it was added; the
+/// colour travels in the callback's data pointer.
+void clear_clip_rect(const ImDrawList*, const ImDrawCmd* cmd) {
+    const ImGuiIO& io = ImGui::GetIO();
+    const float sx = io.DisplayFramebufferScale.x, sy = io.DisplayFramebufferScale.y;
+    const float height = io.DisplaySize.y * sy;
+    const ImVec4 r = cmd->ClipRect; // x1, y1, x2, y2 from the top left
+    const auto x = static_cast<GLint>(std::floor(r.x * sx)), y = static_cast<GLint>(std::floor(height - r.w * sy));
+    const auto w = static_cast<GLsizei>(std::ceil(r.z * sx)) - x;
+    const auto h = static_cast<GLsizei>(std::ceil(height - r.y * sy)) - y;
+    if (w <= 0 || h <= 0) return;
+    glEnable(GL_SCISSOR_TEST); // the renderer sets its own scissor again for the next command
+    glScissor(x, y, w, h);
+    set_clear_colour(static_cast<ImU32>(reinterpret_cast<std::uintptr_t>(cmd->UserCallbackData)));
+    glClear(GL_COLOR_BUFFER_BIT);
+}
+
+} // namespace
+
+void use_unfiltered_font_texture() {
+    ImGui_ImplOpenGL2_CreateFontsTexture();
+    glBindTexture(GL_TEXTURE_2D, static_cast<GLuint>(reinterpret_cast<std::intptr_t>(ImGui::GetIO().Fonts->TexID)));
+    glTexParameteri(GL_TEXTURE_2D, GL_TEXTURE_MIN_FILTER, GL_NEAREST);
+    glTexParameteri(GL_TEXTURE_2D, GL_TEXTURE_MAG_FILTER, GL_NEAREST);
+    glBindTexture(GL_TEXTURE_2D, 0);
+}
+
+void finish_gl() { glFinish(); }
+
+void clear_window(ImU32 colour) {
+    glDisable(GL_SCISSOR_TEST);
+    set_clear_colour(colour);
+    glClear(GL_COLOR_BUFFER_BIT);
+}
+
+void add_clear_fill(ImDrawList* dl, ImU32 colour) {
+    dl->AddCallback(clear_clip_rect, reinterpret_cast<void*>(static_cast<std::uintptr_t>(colour)));
+}
+
+} // namespace terzo::gui
