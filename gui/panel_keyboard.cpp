@@ -35,7 +35,7 @@ void draw_keyboard_strip(App& app) {
     for (std::size_t i = 0; i < notes.size(); ++i) {
         const Note& nt = notes[i];
         const bool on = std::find(sel.begin(), sel.end(), static_cast<int>(i)) != sel.end();
-        ImU32 fill = on ? node_selected_colour : nt.degree == 0 ? IM_COL32(92, 102, 128, 255) : IM_COL32(56, 64, 82, 255);
+        ImU32 fill = on ? node_selected_colour : nt.degree == 0 ? strip_period_key_colour : strip_key_colour;
         if (static_cast<int>(i) == under_mouse && !on) fill = IM_COL32(80, 110, 150, 255);
         const ImVec2 p0(std::round(origin.x + pitch * static_cast<float>(i)), origin.y);
         const ImVec2 p1(std::max(p0.x + 1.0f, std::round(origin.x + pitch * static_cast<float>(i + 1)) - gap), origin.y + height);

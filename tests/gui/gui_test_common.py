@@ -7,6 +7,7 @@ import zlib
 NODE = (70, 130, 200)
 NODE_SELECTED = (235, 140, 50)
 EXACT = (120, 230, 255)
+STRIP_PERIOD_KEY = (92, 102, 128)
 
 
 def read_png(path):

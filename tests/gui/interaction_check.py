@@ -1,6 +1,6 @@
 """ctest (run inside xvfb-run): real mouse and keyboard input through xdotool. Opens the demo
-tuning, clicks the lattice nodes of degrees 0 (1/1) and 4 (3/2), presses 2 (dyad grid view) and
-Ctrl+S, and checks the saved session file; exports the lattice as PNG with Ctrl+P and Enter;
+tuning, clicks the lattice nodes of degrees 0 (1/1) and 4 (3/2) and the keyboard strip's key of
+note 2, presses 2 (dyad grid view) and Ctrl+S, and checks the saved session file; exports the lattice as PNG with Ctrl+P and Enter;
 then Escape and Ctrl+Q, and checks the session again.
 usage: interaction_check.py TERZO_GUI TUNING WORKDIR"""
 import json
@@ -57,6 +57,14 @@ right = [b for b in g.blobs(image, g.NODE) if abs(b[1] - n0[1]) < 3 and b[0] > n
 assert right, "no node to the right of 1/1"
 n4 = min(right, key=lambda b: b[0])
 print("degree 0 at", n0[:2], "degree 4 at", n4[:2])
+# The keyboard strip (below the lattice): note 0's key has the selected colour; the keys of
+# degree 0 in the next periods (notes 8, 16, 24 of the demo's 8 degrees) give the key pitch.
+key0 = [b for b in g.blobs(image, g.NODE_SELECTED) if 330 < b[0] < 930 and b[1] > 700]
+assert len(key0) == 1, key0
+period_keys = sorted(b[0] for b in g.blobs(image, g.STRIP_PERIOD_KEY) if b[1] > 700)
+assert len(period_keys) == 3, period_keys
+key2 = (key0[0][0] + 2 * (period_keys[1] - period_keys[0]) / 8, key0[0][1])
+print("strip key of note 0 at", key0[0][:2], "note 2 at", key2)
 
 def attempt():
     for leftover in (session, os.path.join(work, "demo-lattice.png")):
@@ -76,6 +84,10 @@ def attempt():
         settle()
         xdo("click", "1")
         settle()
+        xdo("mousemove", str(round(key2[0])), str(round(key2[1])))
+        settle()
+        xdo("click", "1")
+        settle()
         xdo("key", "2")
         settle()
         assert not os.path.exists(session)
@@ -83,11 +95,11 @@ def attempt():
         wait_for(lambda: os.path.exists(session), "Ctrl+S to save the session")
         s = read_session()
         print("after clicks:", s["selection"], s["view"])
-        assert s["selection"] == [0, 4], s["selection"]
+        assert s["selection"] == [0, 2, 4], s["selection"]
         assert s["view"] == "grid"
         assert s["tunings"][0]["source"] == tuning
         # Ctrl+P opens the export dialog in the working folder with a file name filled in; Enter
-        # saves the lattice canvas: the 6 unselected demo nodes, the dialog no longer in the way.
+        # saves the lattice canvas: the 5 unselected demo nodes, the dialog no longer in the way.
         xdo("key", "1")
         settle()
         xdo("key", "ctrl+p")
@@ -98,7 +110,7 @@ def attempt():
         lattice = g.read_png(png)
         print("lattice export:", lattice[0], "x", lattice[1])
         assert 500 < lattice[0] < 700 and 500 < lattice[1] < 700, lattice[:2]
-        assert len(g.blobs(lattice, g.NODE)) == 6
+        assert len(g.blobs(lattice, g.NODE)) == 5
         xdo("key", "Escape")
         settle()
         xdo("key", "ctrl+q")
