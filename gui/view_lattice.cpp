@@ -128,9 +128,14 @@ void draw_lattice_view(App& app) {
         return ImVec2(origin.x + o.x * cam.zoom, origin.y + o.y * cam.zoom);
     };
 
-    // Faint lattice points around the origin show the grid the degrees sit on.
+    // Faint lattice points around the origin show the grid the degrees sit on: 3-pixel squares,
+    // two triangles each (a smoothed circle is about thirty, which software OpenGL feels).
     for (int e3 = -6; e3 <= 6; ++e3)
-        for (int e5 = -3; e5 <= 3; ++e5) dl->AddCircleFilled(at({e3, e5, 0}), 2.0f, IM_COL32(70, 75, 90, 255));
+        for (int e5 = -3; e5 <= 3; ++e5) {
+            const ImVec2 c = at({e3, e5, 0});
+            const ImVec2 q(std::round(c.x) - 1.0f, std::round(c.y) - 1.0f);
+            dl->AddRectFilled(q, ImVec2(q.x + 3.0f, q.y + 3.0f), IM_COL32(70, 75, 90, 255));
+        }
 
     // Edges: one step of 3, 5 or 7 between two placed degrees.
     const ImU32 edge_col[3] = {IM_COL32(95, 110, 140, 255), IM_COL32(90, 140, 110, 255), IM_COL32(140, 100, 150, 255)};
