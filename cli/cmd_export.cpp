@@ -2,6 +2,7 @@
 // memory first; only when all of them are valid and none would overwrite a file without
 // --force are they written, each atomically.
 #include <filesystem>
+#include <optional>
 #include <iostream>
 #include <sstream>
 
@@ -67,7 +68,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     if (!o.pitch.empty() && o.ref_hz_given)
         fail({"--ref-hz", 0, 0}, "give either --ref-hz (the root key's frequency) or --pitch (a "
                                  "named note's), not both");
-    KeyReference ref{69, 440.0};
+    std::optional<KeyReference> ref;
     if (!o.pitch.empty()) ref = key_reference(parse_pitch_reference(o.pitch, {"--pitch", 0, 0}));
     if (o.ref_hz_given) {
         if (!(o.ref_hz > 0 && o.ref_hz <= 20000))
@@ -97,7 +98,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
              "--table");
 
     const Scale scale = load_tuning(o.tuning);
-    const KeyMap map(scale, root_key, ref);
+    const KeyMap map(scale, root_key, ref ? *ref : default_key_reference(scale.size(), root_key));
     const std::string name_text = o.name.empty() ? mts_name_from_description(scale.description()) : o.name;
     const auto name = mts_name(name_text, {"--name", 0, 0});
     const MtsAddress to{device, program, bank};
@@ -228,9 +229,10 @@ void run_export(const ExportOptions& o, std::ostream& report) {
            << scale.period().str() << ")\n";
     report << "Keys: key " << root_key << " (" << note_text(note_of_key(root_key))
            << ") plays degree 0 at " << fixed(map.root_hz(), 6) << " Hz";
-    if (ref.key != root_key)
-        report << "; key " << ref.key << " (" << note_text(note_of_key(ref.key)) << ") sounds at "
-               << fixed(ref.hz, 6) << " Hz";
+    const KeyReference& used = map.reference();
+    if (used.key != root_key)
+        report << "; key " << used.key << " (" << note_text(note_of_key(used.key)) << ") sounds at "
+               << fixed(used.hz, 6) << " Hz";
     report << "\n";
     if (!keys.out_of_range.empty() && (any_mts || !o.smf.empty()))
         report << "Keys outside the MIDI Tuning Standard's 8.175799..13289.656616 Hz, sent as "
@@ -303,7 +305,8 @@ void add_export(CLI::App& app) {
     auto* ref_hz =
         cmd->add_option("--ref-hz", o->ref_hz, "Frequency of the root key in Hz")->type_name("HZ");
     cmd->add_option("--pitch", o->pitch,
-                    "A named note's frequency, such as A4=415 (default A4=440)")
+                    "A named note's frequency, such as A4=415 (default: A4=440 for 12-note tunings; for "
+                    "other sizes the root key keeps its 12-TET frequency at A4=440)")
         ->type_name("NOTE=HZ");
     cmd->add_option(
         "--name", o->name,

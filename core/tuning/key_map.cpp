@@ -25,6 +25,11 @@ KeyReference key_reference(const PitchReference& ref) {
     return {midi_key(ref.note), ref.hz};
 }
 
+KeyReference default_key_reference(std::size_t scale_size, int root_key) {
+    if (scale_size == 12) return {69, 440.0};
+    return {root_key, 440.0 * std::exp2((root_key - 69) / 12.0)};
+}
+
 KeyMap::KeyMap(Scale scale, int root_key, KeyReference ref)
     : scale_(std::move(scale)), root_key_(root_key), ref_(ref) {
     TERZO_ASSERT(root_key >= lowest_key && root_key <= highest_key);

@@ -3,6 +3,7 @@
 // each pass through the degrees moves up one period. A reference pitch fixes the frequency.
 #pragma once
 
+#include <cstddef>
 #include <string>
 
 #include "core/arith/pitch.hpp"
@@ -23,6 +24,13 @@ struct KeyReference {
 
 /// A reference pitch "A4=440" as a key reference: the named note's key number sounds at hz.
 KeyReference key_reference(const PitchReference& ref);
+
+/// The reference used when none is given. A 12-note tuning is laid at A4 = 440 Hz (key 69),
+/// as the trade expects. A tuning of any other size walks a different degree on key 69 (in a
+/// 31-note tuning it is degree 9), so pinning 440 Hz there would move degree 0 far from where
+/// a player looks for it; instead the root key keeps its 12-TET frequency at A4 = 440 Hz
+/// (261.626 Hz for key 60, middle C).
+KeyReference default_key_reference(std::size_t scale_size, int root_key);
 
 /// One key of the map.
 struct MappedKey {

@@ -67,6 +67,22 @@ TEST_CASE("export writes several outputs in one run", "[export]") {
                      "largest rounding error 0.4706 cents, 21 bytes\n") != std::string::npos);
 }
 
+TEST_CASE("export without a reference keeps the root key at its 12-TET pitch unless the tuning has 12 notes", "[export]") {
+    const fs::path d = fresh_dir("default-reference");
+    // 12-TET at A4 = 440 Hz: C4 261.6256 Hz (REFERENCES.md 4, agreeing with the CRC Handbook's
+    // table of equal-tempered frequencies). In the 7-note scale key 69 plays degree 2 of the
+    // next period (5/4 above 2/1), which the old default pinned to 440 Hz.
+    Run seven = run_terzo_in(d, "export seven.scl --table seven.csv");
+    INFO(seven.err);
+    REQUIRE(seven.status == 0);
+    CHECK(seven.out.find("Keys: key 60 (C4) plays degree 0 at 261.625565 Hz\n") != std::string::npos);
+    CHECK(slurp(d / "seven.csv").find("\n69,,2,1,654.063913,") != std::string::npos); // 261.625565 * 2 * 5/4
+    // The 12-note meantone is laid at A4 = 440 Hz as before.
+    Run twelve = run_terzo_in(d, "export meantone.scl --table twelve.csv");
+    REQUIRE(twelve.status == 0);
+    CHECK(twelve.out.find("; key 69 (A4) sounds at 440.000000 Hz\n") != std::string::npos);
+}
+
 TEST_CASE("export writes nothing when any output fails its checks", "[export]") {
     const fs::path d = fresh_dir("none");
     SECTION("a scale/octave form for a 7-note scale") {

@@ -128,6 +128,25 @@ TEST_CASE("a named reference pitch is mapped through its key", "[key_map]") {
     }
 }
 
+TEST_CASE("without a reference, 12-note tunings sit at A4 = 440 and other sizes keep the root key's 12-TET pitch", "[key_map]") {
+    // 12-TET at A4 = 440 Hz: C4 (key 60) is 261.6256 Hz and D4 (key 62) 293.6648 Hz
+    // (REFERENCES.md 4, agreeing with the CRC Handbook's table of equal-tempered frequencies).
+    const KeyReference twelve = default_key_reference(12, 60);
+    CHECK(twelve.key == 69);
+    CHECK(twelve.hz == 440.0);
+    const KeyReference nineteen = default_key_reference(19, 60);
+    CHECK(nineteen.key == 60);
+    CHECK_THAT(nineteen.hz, WithinAbs(261.6256, 5e-5));
+    CHECK_THAT(default_key_reference(31, 62).hz, WithinAbs(293.6648, 5e-5));
+    // A 31-note equal division laid from key 60 at the default: degree 0 stays at middle C's
+    // 12-TET pitch, and key 91 (one period up) doubles it.
+    std::vector<Pitch> d;
+    for (int k = 1; k <= 30; ++k) d.push_back(Pitch::from_vector(PrimeVector::prime_power(2, Ratio(k, 31))));
+    KeyMap m31(Scale("31", d, Pitch::from_ratio(Ratio(2))), 60, default_key_reference(31, 60));
+    CHECK_THAT(m31.root_hz(), WithinAbs(261.6256, 5e-5));
+    CHECK_THAT(m31.at(91).hz, WithinAbs(2 * 261.6256, 1e-4));
+}
+
 TEST_CASE("keys keep their keyboard names only in 12-note tunings", "[key_map]") {
     KeyMap twelve(test::equal_division(12), 62, KeyReference{69, 440.0});
     CHECK(key_note_name(twelve, 60) == "C4");
