@@ -146,7 +146,10 @@ Scale read_scl_file(const std::filesystem::path& path) {
 }
 
 std::string scl_cents_text(double cents) {
-    char buf[64];
+    // The shortest fixed-point text that reads back as the same double can be long: about 330
+    // characters for the smallest doubles (-3e-77 cents is "-0.000…0003"), 309 digits for the
+    // largest.
+    char buf[512];
     auto [ptr, ec] = std::to_chars(buf, buf + sizeof buf, cents, std::chars_format::fixed);
     TERZO_ASSERT(ec == std::errc());
     std::string s(buf, ptr);

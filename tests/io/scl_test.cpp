@@ -1,5 +1,7 @@
 #include <catch2/catch.hpp>
 
+#include <cstdlib>
+
 #include <sstream>
 
 #include "core/io/scl.hpp"
@@ -168,6 +170,22 @@ TEST_CASE("the writer follows the format's conventions", "[scl]") {
     CHECK(write(s) == "! t.scl\n!\njust fifth\n 2\n!\n 3/2\n 2/1\n");
     CHECK(scl_cents_text(700.0) == "700.000000");
     CHECK(scl_cents_text(0.5) == "0.500000");
+}
+
+TEST_CASE("cents far below a millionth and far above a million are written so that they read back the same", "[scl]") {
+    // Found by fuzzing: a degree of -3e-77 cents needs 80 characters in fixed point, more than
+    // the writer's buffer held. The extremes of a double are written exactly too (their
+    // shortest round-trip text: C++17 std::to_chars).
+    for (double c : {-3e-77, 4.9406564584124654e-324, 1.7976931348623157e308, -1e-300}) {
+        const std::string text = scl_cents_text(c);
+        INFO(text);
+        CHECK(std::strtod(text.c_str(), nullptr) == c); // strtod: denormals included
+        CHECK(text.find('.') != std::string::npos);
+    }
+    CHECK(scl_cents_text(-3e-77) == "-0." + std::string(76, '0') + "3");
+    // The fuzzer's scale itself, through the writer and the reader.
+    Scale tiny("tiny", {Pitch::from_cents(-3e-77), Pitch::from_cents(-0.5)}, Pitch::from_ratio(Ratio(3)));
+    CHECK(read(write(tiny)) == tiny);
 }
 
 TEST_CASE("a description that starts with '!' survives a round trip", "[scl]") {
