@@ -75,6 +75,19 @@ Frame run_frame(char* buffer, std::size_t size) {
     return f;
 }
 
+/// The frame after the events sees Ctrl+S pressed; the frame after that sees Ctrl released.
+void check_ctrl_s_then_released(ImGuiIO& io) {
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK(io.KeyCtrl);
+    CHECK(ImGui::IsKeyPressed(sf::Keyboard::S, false));
+    ImGui::Render();
+    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
+    ImGui::NewFrame();
+    CHECK_FALSE(io.KeyCtrl);
+    ImGui::Render();
+}
+
 } // namespace
 
 TEST_CASE("mouse events set the position and the buttons", "[imgui_sfml]") {
@@ -194,15 +207,7 @@ TEST_CASE("a Ctrl shortcut tapped within one frame keeps Ctrl for that frame", "
     platform_event(io, key(true, sf::Keyboard::S, true));
     platform_event(io, key(false, sf::Keyboard::S, true));
     platform_event(io, key(false, sf::Keyboard::LControl, false));
-    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
-    ImGui::NewFrame();
-    CHECK(io.KeyCtrl);
-    CHECK(ImGui::IsKeyPressed(sf::Keyboard::S, false));
-    ImGui::Render();
-    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
-    ImGui::NewFrame();
-    CHECK_FALSE(io.KeyCtrl);
-    ImGui::Render();
+    check_ctrl_s_then_released(io);
 }
 
 TEST_CASE("Ctrl released in the frame of the key press still makes a shortcut", "[imgui_sfml]") {
@@ -216,15 +221,7 @@ TEST_CASE("Ctrl released in the frame of the key press still makes a shortcut", 
     platform_event(io, key(true, sf::Keyboard::S, true));
     platform_event(io, key(false, sf::Keyboard::LControl, true));
     platform_event(io, key(false, sf::Keyboard::S, false));
-    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
-    ImGui::NewFrame();
-    CHECK(io.KeyCtrl);
-    CHECK(ImGui::IsKeyPressed(sf::Keyboard::S, false));
-    ImGui::Render();
-    platform_new_frame(io, {800, 600}, 1.0f / 60.0f);
-    ImGui::NewFrame();
-    CHECK_FALSE(io.KeyCtrl);
-    ImGui::Render();
+    check_ctrl_s_then_released(io);
 }
 
 TEST_CASE("typed text reaches a focused text field, control characters do not", "[imgui_sfml]") {
