@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # terzo set-up: installs what is missing (Debian 12, as root), builds, then runs or tests.
 #   ./build.sh run    build, then open the demo (GUI when a display exists, else the terminal analysis)
-#   ./build.sh test   build, then run every test through ctest
+#   ./build.sh test   build, then run every test through ctest (Release build)
+#   ./build.sh check  the longer checks: the suite under ASan+UBSan, then each fuzz target
 #   ./build.sh build  build only
 #   ./build.sh fuzz [SECONDS]  build the libFuzzer programs with clang and run each for SECONDS (60)
 # Environment: BUILD_DIR (default build), BUILD_TYPE (default Release), JOBS (default: all cores).
@@ -12,6 +13,7 @@ BUILD_DIR=${BUILD_DIR:-build}
 BUILD_TYPE=${BUILD_TYPE:-Release}
 JOBS=${JOBS:-$(nproc 2>/dev/null || echo 2)}
 ACTION=${1:-run}
+export CCACHE_BASEDIR=${CCACHE_BASEDIR:-$(cd .. && pwd)}
 
 # Every Debian package the project builds, tests or runs with. Keep this the only list.
 PACKAGES=(
@@ -19,7 +21,7 @@ PACKAGES=(
   libboost-dev libsfml-dev libimgui-dev catch2 libcli11-dev libfmt-dev nlohmann-json3-dev
   libbenchmark-dev libfftw3-dev libsndfile1-dev sox
   xvfb xauth xdotool libgl1-mesa-dri
-  strace
+  strace ccache libstb-dev
   clang libclang-rt-14-dev
 )
 
@@ -49,7 +51,11 @@ install_missing() {
 configure_and_build() {
   local dir=$1; shift
   if [ ! -f "$dir/CMakeCache.txt" ]; then
-    cmake -S . -B "$dir" -G Ninja -DCMAKE_BUILD_TYPE="$BUILD_TYPE" "$@"
+    local launcher=()
+    # A compiler cache shared by every checkout of the project (CCACHE_BASEDIR makes paths
+    # relative, so a second worktree reuses the first one's objects).
+    if command -v ccache >/dev/null 2>&1; then launcher=(-DCMAKE_CXX_COMPILER_LAUNCHER=ccache); fi
+    cmake -S . -B "$dir" -G Ninja -DCMAKE_BUILD_TYPE="$BUILD_TYPE" "${launcher[@]}" "$@"
   fi
   cmake --build "$dir" -j "$JOBS"
 }
@@ -75,11 +81,14 @@ case "$ACTION" in
     install_missing
     configure_and_build "$BUILD_DIR"
     (cd "$BUILD_DIR" && ctest --output-on-failure -j "$JOBS")
-    # The same suite for core and the CLI under AddressSanitizer and UBSan (no GUI, no benchmarks).
-    if [ "${TERZO_SKIP_SANITIZE:-0}" != 1 ]; then
-      configure_and_build "$BUILD_DIR-sanitize" -DTERZO_SANITIZE=ON -DTERZO_BUILD_GUI=OFF -DTERZO_BUILD_BENCH=OFF
-      (cd "$BUILD_DIR-sanitize" && ctest --output-on-failure -j "$JOBS")
-    fi
+    ;;
+  check)
+    # The longer checks CI runs after the test command: the same suite for core and the CLI
+    # under AddressSanitizer and UBSan (no GUI, no benchmarks), then every fuzz target.
+    install_missing
+    configure_and_build "$BUILD_DIR-sanitize" -DTERZO_SANITIZE=ON -DTERZO_BUILD_GUI=OFF -DTERZO_BUILD_BENCH=OFF
+    (cd "$BUILD_DIR-sanitize" && ctest --output-on-failure -j "$JOBS")
+    "$0" fuzz "${TERZO_FUZZ_SECONDS:-${2:-60}}"
     ;;
   fuzz)
     install_missing
@@ -101,7 +110,7 @@ case "$ACTION" in
     done
     ;;
   *)
-    echo "usage: ./build.sh run|test|build|fuzz [SECONDS]" >&2
+    echo "usage: ./build.sh run|test|check|build|fuzz [SECONDS]" >&2
     exit 2
     ;;
 esac
