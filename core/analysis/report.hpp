@@ -38,7 +38,7 @@ nlohmann::ordered_json note_json(const Note& note);
 ///  "landing": {"degree", "period", "deviation_cents", "exact"}, "audibility"}; the document
 ///  adds "helmholtz_level" (its dyad is needed to know it).
 nlohmann::ordered_json tone_json(const Tone& tone);
-/// The whole document (see the README).
+/// The whole document (its keys are listed in docs/formats.md).
 nlohmann::ordered_json resultants_json(const ResultantsReport& report);
 /// The same document written dyad by dyad, text identical to resultants_json(r).dump(2), so
 /// a million tones never sit in memory as one JSON tree.
