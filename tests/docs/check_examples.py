@@ -9,7 +9,8 @@ Without FILEs it reads ROOT/README.md and ROOT/docs/*.md. In each file:
   with `$ ` is a command (a line ending in a backslash continues on the next line); the
   lines up to the next command are its expected output: stdout, then stderr, then
   `(exit status N)` when the status is not 0. A line that is just `...` stands for any
-  number of lines (none included).
+  number of lines (none included). Blank lines at the end of an output are not compared, and CRLF line ends
+  (CSV) count as LF.
 - A fenced block whose info string holds `file=PATH` (```` ```text file=keys.txt ````) is
   written to PATH before the examples that follow it in the same file run, so an example
   can use a file the page shows.
@@ -80,7 +81,7 @@ def parse_example(block):
             text = line[2:]
             while text.endswith("\\") and i + 1 < len(lines):
                 i += 1
-                text = text[:-1] + "\n" + lines[i]
+                text = text + "\n" + lines[i]  # bash joins backslash-newline itself
             commands.append(Command(text, number))
         elif commands:
             commands[-1].expected.append((number, line))
@@ -146,8 +147,8 @@ def run(command, folder, env):
     r = subprocess.run(["bash", "-c", command], cwd=folder, env=env, stdin=subprocess.DEVNULL,
                        stdout=subprocess.PIPE, stderr=subprocess.PIPE, timeout=300)
     out = r.stdout.decode("utf-8", "replace") + r.stderr.decode("utf-8", "replace")
-    lines = out.split("\n")
-    if lines and lines[-1] == "":
+    lines = out.replace("\r\n", "\n").split("\n")  # CSV ends its lines in CRLF
+    while lines and lines[-1] == "":  # a page's block cannot end in blank lines
         lines.pop()
     if r.returncode != 0:
         lines.append(f"(exit status {r.returncode})")
@@ -176,6 +177,8 @@ def check_file(path, source, bindir, shown):
             if not block.lines or not block.lines[0].startswith("$ terzo") or block.skipped:
                 continue
             for command in parse_example(block):
+                while command.expected and command.expected[-1][1] == "":
+                    command.expected.pop()
                 run_count += 1
                 actual = run(command.text, folder, env)
                 bad = match(command.expected, actual)
