@@ -2,7 +2,7 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
-#include "core/io/scale_report.hpp"
+#include "core/report/scale_report.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {

@@ -7,8 +7,8 @@
 #include "cli/commands.hpp"
 #include "cli/interrupt.hpp"
 #include "core/analysis/rank.hpp"
-#include "core/io/format.hpp"
-#include "core/io/table.hpp"
+#include "core/format.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo::cli {
 

@@ -1,7 +1,7 @@
 #include <iostream>
 
 #include "cli/commands.hpp"
-#include "core/analysis/report.hpp"
+#include "core/report/resultants_report.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {

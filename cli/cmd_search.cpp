@@ -10,9 +10,9 @@
 #include "cli/interrupt.hpp"
 #include "core/analysis/search.hpp"
 #include "core/io/atomic_file.hpp"
-#include "core/io/format.hpp"
-#include "core/io/scl.hpp"
-#include "core/io/table.hpp"
+#include "core/format.hpp"
+#include "core/tuning/scl.hpp"
+#include "core/report/table.hpp"
 #include "core/tuning/temperament.hpp"
 
 namespace terzo::cli {

@@ -12,7 +12,7 @@
 
 #include "core/error.hpp"
 #include "core/io/atomic_file.hpp"
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 #include "cli/output_file.hpp"
 
 namespace terzo::cli {

@@ -4,7 +4,7 @@
 #include <fstream>
 
 #include "core/analysis/rank.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "tests/analysis/test_tunings.hpp"
 
 using namespace terzo;

@@ -4,7 +4,7 @@
 #include <sstream>
 
 #include "core/io/frequency_table.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "tests/support/scales.hpp"
 
 using namespace terzo;

@@ -5,7 +5,7 @@
 #include <sstream>
 
 #include "core/io/mts.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "tests/support/scales.hpp"
 
 using namespace terzo;

@@ -5,7 +5,7 @@
 #include <set>
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/library.hpp"
 #include "tests/support/run.hpp"
 

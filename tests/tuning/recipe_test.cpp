@@ -2,7 +2,7 @@
 
 #include <string>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/recipe.hpp"
 #include "core/tuning/temperament.hpp"
 

@@ -5,8 +5,8 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/analysis/report.hpp"
-#include "helpers.hpp"
+#include "core/report/resultants_report.hpp"
+#include "../analysis/helpers.hpp"
 #include "tests/support/run.hpp"
 
 using namespace terzo;

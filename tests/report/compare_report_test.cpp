@@ -1,7 +1,7 @@
 #include <catch2/catch.hpp>
 
 #include "../analysis/test_tunings.hpp"
-#include "core/io/compare_report.hpp"
+#include "core/report/compare_report.hpp"
 #include "xml_check.hpp"
 
 using namespace terzo;

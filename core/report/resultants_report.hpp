@@ -13,7 +13,7 @@
 #include "core/analysis/chord.hpp"
 #include "core/analysis/combination.hpp"
 #include "core/analysis/fit.hpp"
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo {
 

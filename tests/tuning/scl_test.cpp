@@ -4,7 +4,7 @@
 
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 
 using namespace terzo;
 

@@ -1,8 +1,8 @@
-#include "core/analysis/report.hpp"
+#include "core/report/resultants_report.hpp"
 
 #include <sstream>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

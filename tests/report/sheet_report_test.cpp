@@ -3,7 +3,7 @@
 #include <sstream>
 
 #include "../analysis/test_tunings.hpp"
-#include "core/io/sheet_report.hpp"
+#include "core/report/sheet_report.hpp"
 #include "xml_check.hpp"
 
 using namespace terzo;
