@@ -42,7 +42,9 @@ Beat measured_beat(double f_low, double f_high, const CheckedInterval& kind) {
     Beat b;
     b.hz = beat_rate(f_low, f_high, kind.p, kind.q);
     b.cents = cents_of(f_high / f_low, double(kind.p) / double(kind.q));
-    b.tempering = b.cents > 0 ? Tempering::wide : b.cents < 0 ? Tempering::narrow : Tempering::pure;
+    b.tempering = std::abs(b.cents) < measured_pure_tolerance ? Tempering::pure
+                  : b.cents > 0                                  ? Tempering::wide
+                                                                 : Tempering::narrow;
     b.exact = false;
     return b;
 }

@@ -38,8 +38,13 @@ struct IntervalCheck {
 /// counts with its last measurement.
 std::vector<IntervalCheck> check_intervals(const NoteMap& map, const std::vector<NoteCheck>& notes);
 
+/// A measured interval this close to its pure ratio (in cents) is called pure: closer than a
+/// measurement of two separate notes can tell.
+constexpr double measured_pure_tolerance = 0.1;
+
 /// The beat of two measured tones against the pure ratio of `kind`: wide or narrow by the
-/// sign of the size's difference from it (pure only when it is exactly zero).
+/// sign of the size's difference from it, pure within measured_pure_tolerance (the beat rate
+/// is still the computed one).
 Beat measured_beat(double f_low, double f_high, const CheckedInterval& kind);
 
 /// How closely measured tones fit one 12-note tuning at its best pitch standard.

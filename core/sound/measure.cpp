@@ -42,6 +42,8 @@ class RealFft {
     void run() { fftw_execute(plan_); }
     /// |X_k| for k = 0..n/2.
     double magnitude(std::size_t k) const { return std::hypot(out_[k][0], out_[k][1]); }
+    /// |X_k|^2 (cheaper: no square root).
+    double power(std::size_t k) const { return out_[k][0] * out_[k][0] + out_[k][1] * out_[k][1]; }
     std::complex<double> bin(std::size_t k) const { return {out_[k][0], out_[k][1]}; }
 
   private:
@@ -137,12 +139,16 @@ std::vector<NoteSpan> find_notes(const std::vector<double>& x, double rate,
     const double noise_level = level_db(noise_power / double(bins) / (0.375 * double(frame)));
 
     // Pass 2: the flux.
+    // Most bins sit under their floor: compare powers first and take a logarithm only above.
+    std::vector<double> floor_power(bins);
+    for (std::size_t k = 0; k < bins; ++k) floor_power[k] = std::exp(2.0 * floor[k]);
     std::vector<double> flux(frames, 0.0), prev(floor), cur(bins);
     for (std::size_t t = 0; t < frames; ++t) {
         transform(t);
         double sum = 0;
         for (std::size_t k = 0; k < bins; ++k) {
-            cur[k] = std::max(std::log(fft.magnitude(k) + tiny), floor[k]);
+            const double p = fft.power(k);
+            cur[k] = p > floor_power[k] ? 0.5 * std::log(p) : floor[k];
             sum += std::max(0.0, cur[k] - prev[k]);
         }
         flux[t] = sum;
@@ -348,7 +354,7 @@ std::optional<PitchEstimate> estimate_pitch(const double* x, std::size_t n, doub
     const auto coarse = yin_pitch(x, n, rate, settings.min_hz, settings.max_hz);
     if (!coarse) return std::nullopt;
 
-    // Spectrum: Hann window, zero-padded to at least twice the length, log magnitudes.
+    // Spectrum: Hann window, zero-padded to at least twice the length.
     const std::size_t m = next_pow2(2 * n);
     RealFft fft(m);
     const std::vector<double> window = hann(n);
@@ -356,8 +362,10 @@ std::optional<PitchEstimate> estimate_pitch(const double* x, std::size_t n, doub
     for (std::size_t i = 0; i < n; ++i) fft.input()[i] = x[i] * window[i];
     fft.run();
     const std::size_t bins = m / 2 + 1;
-    std::vector<double> logmag(bins);
-    for (std::size_t k = 0; k < bins; ++k) logmag[k] = std::log(fft.magnitude(k) + 1e-300);
+    // Powers for all bins; logarithms only where a peak is interpolated (the search and the
+    // median are the same on powers, which order the bins as the magnitudes do).
+    std::vector<double> power(bins);
+    for (std::size_t k = 0; k < bins; ++k) power[k] = fft.power(k) + 1e-300;
     const double bin_hz = rate / double(m);
 
     // A peak near `hz`: the largest bin within +-width, not at the edge of that range, standing
@@ -369,17 +377,17 @@ std::optional<PitchEstimate> estimate_pitch(const double* x, std::size_t n, doub
         if (hi - lo < 2) return std::nullopt;
         long best = lo;
         for (long i = lo; i <= hi; ++i)
-            if (logmag[std::size_t(i)] > logmag[std::size_t(best)]) best = i;
+            if (power[std::size_t(i)] > power[std::size_t(best)]) best = i;
         if (best == lo || best == hi) return std::nullopt;
         const long nlo = std::max(1L, long((hz - 0.5 * f0) / bin_hz));
         const long nhi = std::min(long(bins) - 1, long((hz + 0.5 * f0) / bin_hz));
         if (nhi <= nlo) return std::nullopt;
-        std::vector<double> around(logmag.begin() + nlo, logmag.begin() + nhi + 1);
+        std::vector<double> around(power.begin() + nlo, power.begin() + nhi + 1);
         const double floor = percentile(std::move(around), 0.5);
-        const double snr_db = (logmag[std::size_t(best)] - floor) * 20.0 / std::log(10.0);
+        const double snr_db = 10.0 * std::log10(power[std::size_t(best)] / floor);
         if (snr_db < 15.0) return std::nullopt;
-        const double a = logmag[std::size_t(best - 1)], b = logmag[std::size_t(best)],
-                     c = logmag[std::size_t(best + 1)];
+        const double a = 0.5 * std::log(power[std::size_t(best - 1)]), b = 0.5 * std::log(power[std::size_t(best)]),
+                     c = 0.5 * std::log(power[std::size_t(best + 1)]);
         const double den = a - 2 * b + c;
         const double offset = den < 0 ? 0.5 * (a - c) / den : 0.0;
         return MeasuredPartial{0, (double(best) + offset) * bin_hz, snr_db};

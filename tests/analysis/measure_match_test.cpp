@@ -65,6 +65,11 @@ TEST_CASE("the intervals between measured notes beat as played beside the tuning
     CHECK(checks[0].low == NoteName{5, 3});
     CHECK(checks[0].measured.hz == Approx(0.5912).margin(5e-5));
     CHECK(checks[0].measured.tempering == Tempering::narrow);
+    // Within a tenth of a cent of pure a measured interval is called pure.
+    CHECK(measured_beat(200.0, 300.0 * std::pow(2.0, 0.09 / 1200), checked_intervals()[0]).tempering ==
+          Tempering::pure);
+    CHECK(measured_beat(200.0, 300.0 * std::pow(2.0, 0.11 / 1200), checked_intervals()[0]).tempering ==
+          Tempering::wide);
     CHECK(checks[1].measured.hz == Approx(0.8858).margin(5e-5));
     CHECK(checks[1].target.hz == Approx(0.8858).margin(5e-5));
 
