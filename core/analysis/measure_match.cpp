@@ -49,6 +49,23 @@ Beat measured_beat(double f_low, double f_high, const CheckedInterval& kind) {
     return b;
 }
 
+std::optional<IntervalCheck> check_interval(const NoteMap& map, const NoteCheck& a, const NoteCheck& b) {
+    const bool rising = midi_key(a.note) < midi_key(b.note);
+    const NoteCheck& low = rising ? a : b;
+    const NoteCheck& high = rising ? b : a;
+    for (const CheckedInterval& kind : checked_intervals())
+        if (midi_key(high.note) - midi_key(low.note) == kind.semitones) {
+            IntervalCheck c;
+            c.kind = &kind;
+            c.low = low.note;
+            c.high = high.note;
+            c.measured = measured_beat(low.hz, high.hz, kind);
+            c.target = beat(map.interval(c.low, c.high), map.hz(c.low), kind);
+            return c;
+        }
+    return std::nullopt;
+}
+
 std::vector<IntervalCheck> check_intervals(const NoteMap& map, const std::vector<NoteCheck>& notes) {
     std::map<int, const NoteCheck*> by_key; // the last measurement of each note
     for (const NoteCheck& n : notes) by_key[midi_key(n.note)] = &n;
@@ -57,13 +74,9 @@ std::vector<IntervalCheck> check_intervals(const NoteMap& map, const std::vector
         for (const auto& [key, low] : by_key) {
             auto high = by_key.find(key + kind.semitones);
             if (high == by_key.end()) continue;
-            IntervalCheck c;
-            c.kind = &kind;
-            c.low = low->note;
-            c.high = high->second->note;
-            c.measured = measured_beat(low->hz, high->second->hz, kind);
-            c.target = beat(map.interval(c.low, c.high), map.hz(c.low), kind);
-            out.push_back(c);
+            auto c = check_interval(map, *low, *high->second);
+            TERZO_ASSERT(c && c->kind == &kind);
+            out.push_back(*c);
         }
     return out;
 }

@@ -6,6 +6,7 @@
 #pragma once
 
 #include <cstddef>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -32,6 +33,10 @@ struct IntervalCheck {
     Beat measured; ///< from the two measured frequencies (never exact)
     Beat target;   ///< from the tuning at the pitch standard
 };
+
+/// The checked interval between two measured notes (in either order), if they are one apart:
+/// what a tuner hears after setting `b` against `a`.
+std::optional<IntervalCheck> check_interval(const NoteMap& map, const NoteCheck& a, const NoteCheck& b);
 
 /// Every pair of measured notes a checked interval apart (checked_intervals(): fifths,
 /// fourths, thirds, sixths), ordered by kind, then by low note. A note measured more than once

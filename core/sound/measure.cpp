@@ -461,4 +461,36 @@ std::vector<MeasuredNote> measure_notes(const std::vector<double>& samples, doub
     return out;
 }
 
+LivePitch::LivePitch(double sample_rate, double window_s)
+    : rate_(sample_rate), size_(std::max<std::size_t>(64, std::size_t(sample_rate * window_s))),
+      ring_(size_, 0.0) {
+    if (!(sample_rate > 0) || !(window_s > 0))
+        throw std::invalid_argument("LivePitch: sample rate and window must be positive");
+}
+
+void LivePitch::feed(const double* x, std::size_t n) {
+    for (std::size_t i = 0; i < n; ++i) {
+        ring_[next_] = x[i];
+        next_ = (next_ + 1) % size_;
+    }
+    filled_ = std::min(size_, filled_ + n);
+}
+
+void LivePitch::clear() {
+    std::fill(ring_.begin(), ring_.end(), 0.0);
+    next_ = filled_ = 0;
+}
+
+std::optional<PitchEstimate> LivePitch::measure(const MeasureSettings& settings, double quiet_dbfs) const {
+    if (filled_ < size_) return std::nullopt;
+    std::vector<double> x(size_);
+    double sum = 0;
+    for (std::size_t i = 0; i < size_; ++i) {
+        x[i] = ring_[(next_ + i) % size_];
+        sum += x[i] * x[i];
+    }
+    if (level_db(sum / double(size_)) < quiet_dbfs) return std::nullopt;
+    return estimate_pitch(x.data(), x.size(), rate_, settings);
+}
+
 } // namespace terzo

@@ -84,4 +84,27 @@ struct MeasuredNote {
 std::vector<MeasuredNote> measure_notes(const std::vector<double>& samples, double sample_rate,
                                         const MeasureSettings& settings = {});
 
+/// The live check's ear: keeps the most recent stretch of sound (fed in pieces, as a capture
+/// device or a test delivers it) and measures it on demand.
+class LivePitch {
+  public:
+    /// Keeps the last window_s seconds at sample_rate (both > 0).
+    LivePitch(double sample_rate, double window_s = 0.4);
+    /// Appends samples (full scale +-1).
+    void feed(const double* samples, std::size_t n);
+    /// Forgets everything fed so far.
+    void clear();
+    /// The pitch of the kept window once it is full; empty while it fills, when its RMS level
+    /// is under quiet_dbfs, or when it has no pitch.
+    std::optional<PitchEstimate> measure(const MeasureSettings& settings = {},
+                                         double quiet_dbfs = -50.0) const;
+    double sample_rate() const { return rate_; }
+
+  private:
+    double rate_;
+    std::size_t size_;
+    std::vector<double> ring_; ///< the last size_ samples, oldest at next_ once full
+    std::size_t next_ = 0, filled_ = 0;
+};
+
 } // namespace terzo

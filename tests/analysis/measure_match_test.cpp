@@ -151,3 +151,21 @@ TEST_CASE("the closest library tuning is the one the notes were tuned in", "[mea
             }
         }
 }
+
+TEST_CASE("the interval just tuned is found in either order with its target beat",
+          "[measure_match]") {
+    // Werckmeister III at A4 = 440: the major third F3-A3 beats 1.9859 per second
+    // (REFERENCES.md section 4, computed; Rhodes' frequencies F3 175.6028, A3 220).
+    NoteMap map(test::werckmeister_3(), 0, a440, "test");
+    const NoteCheck f3 = check_note(map, 175.6028), a3 = check_note(map, 220.0);
+    for (auto [first, second] : {std::pair{f3, a3}, std::pair{a3, f3}}) {
+        auto c = check_interval(map, first, second);
+        REQUIRE(c);
+        CHECK(c->kind->name == "major third");
+        CHECK(c->low == NoteName{5, 3});
+        CHECK(c->target.hz == Approx(1.9859).margin(5e-5));
+        CHECK(c->measured.hz == Approx(1.9859).margin(2e-3));
+    }
+    // A whole tone is not a checked interval.
+    CHECK_FALSE(check_interval(map, f3, check_note(map, 196.8850)));
+}

@@ -165,3 +165,30 @@ TEST_CASE("measuring rejects a sample rate that is not positive", "[measure]") {
     CHECK_THROWS_AS(measure_notes(x, 0.0), std::invalid_argument);
     CHECK_THROWS_AS(find_notes(x, -1.0), std::invalid_argument);
 }
+
+TEST_CASE("the live check measures the last stretch of sound fed to it in pieces",
+          "[measure]") {
+    test::StringSound s;
+    s.sample_rate = 48000;
+    auto r = test::string_recording({{220.0, 1.5, 0.0, 0.0}}, s, 0.5);
+    LivePitch live(s.sample_rate, 0.4);
+    std::size_t fed = 0;
+    auto feed_until = [&](double t) {
+        const std::size_t end = std::min(r.samples.size(), std::size_t(t * s.sample_rate));
+        while (fed < end) { // in pieces of 441 samples, as a capture device delivers them
+            const std::size_t n = std::min<std::size_t>(441, end - fed);
+            live.feed(r.samples.data() + fed, n);
+            fed += n;
+        }
+    };
+    feed_until(0.3);
+    CHECK_FALSE(live.measure()); // not yet 0.4 s
+    feed_until(0.45);
+    CHECK_FALSE(live.measure()); // the background noise alone: quiet
+    feed_until(1.2);
+    auto p = live.measure();
+    REQUIRE(p);
+    CHECK(std::abs(cents_between(p->hz, 220.0)) < 0.3);
+    live.clear();
+    CHECK_FALSE(live.measure());
+}
