@@ -5,9 +5,11 @@
 // have beside the one it has. All computation is core's (core/sound/measure,
 // core/analysis/measure_match). A clear message replaces it when no capture device exists.
 //
-// Test hook: with TERZO_CHECK_WAV=FILE in the environment the panel opens at start and
+// Test hooks: with TERZO_CHECK_WAV=FILE in the environment the panel opens at start and
 // listens to that WAV file instead of a microphone, 1/60 s of it per frame whatever the frame
-// rate, and prints each new reading to stdout ("check: ..."), so it can be tested under Xvfb.
+// rate, and prints each new reading to stdout ("check: ..."), so it can be tested under Xvfb;
+// TERZO_CHECK_OPEN=1 opens it at start with the microphone, and it prints why it cannot
+// listen ("check: ...") when that is so.
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
@@ -85,14 +87,18 @@ void start(CheckState& s) {
         }
         return;
     }
+    // OpenAL may list a capture device that then cannot be opened (no sound card): both
+    // end in the same message.
+    const char* none = "No sound capture device (microphone) could be opened, so there is nothing to listen "
+                       "to. Connect one and reopen this panel, or record the notes and run "
+                       "`terzo measure FILE.wav`.";
     if (!sf::SoundRecorder::isAvailable()) {
-        s.problem = "No sound capture device (microphone) was found, so there is nothing to listen to. "
-                    "Connect one and reopen this panel, or measure a recording with `terzo measure FILE.wav`.";
+        s.problem = none;
         return;
     }
     s.mic = std::make_unique<Microphone>();
     if (!s.mic->start(48000)) {
-        s.problem = "The sound capture device could not be opened.";
+        s.problem = none;
         s.mic.reset();
         return;
     }
@@ -136,16 +142,23 @@ void open_check_panel() {
 
 void draw_check_panel(App& app) {
     CheckState& s = state();
-    static const bool hooked = [] {
-        const char* p = std::getenv("TERZO_CHECK_WAV");
-        return p && *p;
+    static bool open_at_start = [] {
+        const char* wav = std::getenv("TERZO_CHECK_WAV");
+        const char* open = std::getenv("TERZO_CHECK_OPEN");
+        return (wav && *wav) || (open && std::string(open) == "1");
     }();
-    if (hooked && !s.started) s.open = true;
+    if (open_at_start) s.open = true, open_at_start = false;
     if (!s.open) {
         if (s.started) stop(s);
         return;
     }
-    if (!s.started) start(s);
+    if (!s.started) {
+        start(s);
+        if (!s.problem.empty() && (std::getenv("TERZO_CHECK_OPEN") || std::getenv("TERZO_CHECK_WAV"))) {
+            std::printf("check: %s\n", s.problem.c_str());
+            std::fflush(stdout);
+        }
+    }
 
     ImGui::SetNextWindowSize(ImVec2(420, 330), ImGuiCond_FirstUseEver);
     ImGui::SetNextWindowPos(ImVec2(380, 120), ImGuiCond_FirstUseEver);
