@@ -172,6 +172,7 @@ void menu_bar(App& app) {
         if (ImGui::MenuItem("Sheet", "4", app.session.view == "sheet")) set_view(app, "sheet");
         ImGui::Separator();
         if (ImGui::MenuItem("Centre the lattice", "Home")) app.camera = LatticeCamera{};
+        if (ImGui::MenuItem("Tuning check (microphone)")) open_check_panel();
         ImGui::EndMenu();
     }
     if (ImGui::BeginMenu("Help")) {
@@ -265,6 +266,7 @@ void draw_app(App& app) {
 
     status_bar(app, ImVec2(0, io.DisplaySize.y - status_h), ImVec2(io.DisplaySize.x, status_h));
     draw_help_panel(app);
+    draw_check_panel(app);
     std::filesystem::path chosen;
     if (draw_file_dialog(app.dialog, chosen)) dialog_chosen(app, chosen);
 }

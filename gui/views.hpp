@@ -24,6 +24,8 @@ void draw_selection_panel(App& app); ///< panel_selection.cpp: the selected note
 void draw_listen_panel(App& app);    ///< panel_listen.cpp
 void play_selection(App& app);       ///< panel_listen.cpp: render the selection and play it
 void draw_help_panel(App& app);      ///< panel_help.cpp
+void draw_check_panel(App& app);     ///< panel_check.cpp: the microphone tuning check (a window)
+void open_check_panel();             ///< panel_check.cpp
 
 /// "degree 4" or "degree 4 (+1 period)": how notes are named on screen.
 std::string note_label(const Keyboard& kb, int degree, int period);

@@ -1,7 +1,10 @@
 #include "core/io/wav.hpp"
 
 #include <algorithm>
+#include <cmath>
 #include <cstring>
+#include <fstream>
+#include <iterator>
 
 #include <sndfile.h>
 
@@ -86,6 +89,67 @@ std::string encode_wav(const std::vector<double>& samples, const WavFormat& form
         fail({"wav", 0, 0},
              "cannot encode: " + (problem.empty() ? sf_error_number(closed) : problem));
     return std::move(file.bytes);
+}
+
+WavAudio decode_wav(const std::string& bytes, const std::string& source) {
+    const SourcePos pos{source, 0, 0};
+    // libsndfile reads through the same memory file as the encoder; it never writes here.
+    MemoryFile file{bytes, 0};
+    SF_VIRTUAL_IO io{mem_length, mem_seek, mem_read, mem_write, mem_tell};
+    SF_INFO info{};
+    SNDFILE* sf = sf_open_virtual(&io, SFM_READ, &info, &file);
+    if (!sf)
+        fail(pos, "not a WAV file terzo can read (RIFF/WAVE with integer or float samples)");
+    struct Closer {
+        SNDFILE* f;
+        ~Closer() { sf_close(f); }
+    } closer{sf};
+    if ((info.format & SF_FORMAT_TYPEMASK) != SF_FORMAT_WAV &&
+        (info.format & SF_FORMAT_TYPEMASK) != SF_FORMAT_WAVEX)
+        fail(pos, "not a WAV file terzo can read (RIFF/WAVE with integer or float samples)");
+    if (info.samplerate < min_read_rate || info.samplerate > max_read_rate)
+        fail(pos, "sample rate " + std::to_string(info.samplerate) + " Hz is outside " +
+                      std::to_string(min_read_rate) + ".." + std::to_string(max_read_rate) +
+                      " Hz");
+    if (info.channels < 1 || info.channels > 64)
+        fail(pos, std::to_string(info.channels) + " channels; at most 64 are read");
+    if (info.frames <= 0) fail(pos, "holds no samples");
+    if (info.frames > max_read_frames)
+        fail(pos, std::to_string(info.frames) + " frames is more than the " +
+                      std::to_string(max_read_frames) + " read");
+    // Integer samples come back scaled to +-1 (libsndfile divides by 2^(bits-1)); float
+    // samples as stored. Read in blocks and mix the channels to their mean.
+    WavAudio audio;
+    audio.sample_rate = info.samplerate;
+    audio.channels = info.channels;
+    audio.samples.reserve(std::size_t(info.frames));
+    const std::size_t channels = std::size_t(info.channels), block = 4096;
+    std::vector<double> buffer(block * channels);
+    for (;;) {
+        const sf_count_t got = sf_readf_double(sf, buffer.data(), sf_count_t(block));
+        if (got <= 0) break;
+        for (sf_count_t f = 0; f < got; ++f) {
+            double sum = 0;
+            for (std::size_t c = 0; c < channels; ++c) sum += buffer[std::size_t(f) * channels + c];
+            const double v = sum / double(channels);
+            audio.samples.push_back(std::isfinite(v) ? v : 0.0);
+        }
+        if (audio.samples.size() > std::size_t(max_read_frames)) break;
+    }
+    if (audio.samples.empty()) fail(pos, "holds no samples");
+    return audio;
+}
+
+WavAudio read_wav(const std::filesystem::path& path) {
+    std::error_code ec;
+    if (std::filesystem::is_directory(path, ec))
+        fail({path.string(), 0, 0}, "is a folder, not a WAV file");
+    if (!std::filesystem::exists(path, ec)) fail({path.string(), 0, 0}, "no such file");
+    std::ifstream in(path, std::ios::binary);
+    if (!in) fail({path.string(), 0, 0}, "cannot open the file for reading");
+    const std::string bytes{std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>()};
+    if (in.bad()) fail({path.string(), 0, 0}, "cannot read the file");
+    return decode_wav(bytes, path.string());
 }
 
 void write_wav(const std::filesystem::path& path, const std::vector<double>& samples,

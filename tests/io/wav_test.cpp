@@ -108,3 +108,51 @@ TEST_CASE("sample formats have the command line's names", "[wav]") {
     CHECK(sample_format_name(SampleFormat::int16) == "int16");
     CHECK(sample_format_name(SampleFormat::float32) == "float32");
 }
+
+TEST_CASE("a 24-bit stereo file written by Python's wave module reads back mixed to mono",
+          "[wav]") {
+    // Python's wave module writes the file (an independent writer); each frame holds left =
+    // i * 1000 and right = -i * 500 as 24-bit integers, so the mean is i * 250 / 2^23.
+    test::ScratchFolder dir("wav");
+    const fs::path file = dir.path / "stereo.wav";
+    const std::string py = "import wave\n"
+                           "w = wave.open('" + file.string() + "', 'wb')\n"
+                           "w.setnchannels(2); w.setsampwidth(3); w.setframerate(96000)\n"
+                           "b = bytearray()\n"
+                           "for i in range(2000):\n"
+                           "    b += (i * 1000).to_bytes(3, 'little', signed=True)\n"
+                           "    b += (-i * 500).to_bytes(3, 'little', signed=True)\n"
+                           "w.writeframes(bytes(b)); w.close()\n";
+    std::ofstream(dir.path / "write.py") << py;
+    REQUIRE(test::run("python3 '" + (dir.path / "write.py").string() + "'").status == 0);
+    const WavAudio a = read_wav(file);
+    CHECK(a.sample_rate == 96000);
+    CHECK(a.channels == 2);
+    REQUIRE(a.samples.size() == 2000);
+    for (std::size_t i : {std::size_t(0), std::size_t(1), std::size_t(777), std::size_t(1999)})
+        CHECK(a.samples[i] == Approx(double(i) * 250.0 / 8388608.0).margin(1e-12));
+    CHECK(a.seconds() == Approx(2000.0 / 96000.0));
+}
+
+TEST_CASE("16-bit and float files read back as written", "[wav]") {
+    const auto x = test_signal(3000);
+    const WavAudio f = decode_wav(encode_wav(x, WavFormat{44100, SampleFormat::float32}), "f.wav");
+    CHECK(f.sample_rate == 44100);
+    CHECK(f.channels == 1);
+    REQUIRE(f.samples.size() == x.size());
+    for (std::size_t i = 0; i < x.size(); i += 97) CHECK(f.samples[i] == Approx(x[i]).margin(1e-7));
+    const WavAudio s = decode_wav(encode_wav(x, WavFormat{22050, SampleFormat::int16}), "s.wav");
+    CHECK(s.sample_rate == 22050);
+    REQUIRE(s.samples.size() == x.size());
+    // to_pcm16 rounds x * 32768 to nearest; reading divides by 32768.
+    for (std::size_t i = 0; i < x.size(); i += 97)
+        CHECK(s.samples[i] == Approx(std::lround(x[i] * 32768.0) / 32768.0).margin(1e-12));
+
+    SECTION("bad files are refused with the file's name") {
+        CHECK_THROWS_WITH(decode_wav("RIFF....WAVEjunk", "x.wav"),
+                          "x.wav: error: not a WAV file terzo can read (RIFF/WAVE with integer or float samples)");
+        CHECK_THROWS_WITH(decode_wav(encode_wav(x, WavFormat{4000, SampleFormat::int16}), "low.wav"),
+                          "low.wav: error: sample rate 4000 Hz is outside 8000..384000 Hz");
+        CHECK_THROWS_WITH(read_wav(fs::path("/nonexistent/x.wav")), "/nonexistent/x.wav: error: no such file");
+    }
+}
