@@ -102,7 +102,6 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     const Scale scale = load_tuning(o.tuning);
     note_description(scale, o.tuning);
     const KeyMap map(scale, root_key, ref ? *ref : default_key_reference(scale.size(), root_key));
-    map.check_frequencies(o.tuning);
     const std::string name_text = o.name.empty() ? mts_name_from_description(scale.description()) : o.name;
     const auto name = mts_name(name_text, {"--name", 0, 0});
     const MtsAddress to{device, program, bank};
@@ -199,6 +198,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
                                ", " + bytes_text(file.size())});
     }
     if (!o.table.empty()) {
+        map.check_frequencies(o.tuning); // the table prints every key's Hz
         std::ostringstream out;
         if (std::filesystem::path(o.table).extension() == ".json")
             out << json_text(frequency_table_json(map)) << '\n';
