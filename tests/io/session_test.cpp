@@ -190,7 +190,7 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
     }
     SECTION("unreadable paths") {
         REQUIRE_THROWS_WITH(load_session_file("/nonexistent/s.json"),
-                            "/nonexistent/s.json: error: cannot open the session file for reading");
+                            "/nonexistent/s.json: error: no such file");
         REQUIRE_THROWS_WITH(load_session_file("/tmp"),
                             "/tmp: error: is a folder, not a session file");
     }
