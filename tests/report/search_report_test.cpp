@@ -64,7 +64,7 @@ TEST_CASE("written .scl files record the search in their comments and read back"
 TEST_CASE("the cost is described in words, constraints on their own line", "[search_report]") {
     Cost c;
     c.deviations.push_back({KeyInterval::major_third, Statistic::rms, 1.0});
-    CHECK(describe_cost(c) == "cost: 1.00 x rms of the major thirds' deviations\n");
+    CHECK(describe_cost(c) == "cost: 1.00 x rms of the major-thirds' deviations\n");
     c.constraints.no_wide_fifths = true;
-    CHECK(describe_cost(c) == "cost: 1.00 x rms of the major thirds' deviations\nconstraints: no fifth wider than pure\n");
+    CHECK(describe_cost(c) == "cost: 1.00 x rms of the major-thirds' deviations\nconstraints: no fifth wider than pure\n");
 }
