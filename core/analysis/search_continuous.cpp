@@ -19,13 +19,7 @@
 
 namespace terzo {
 
-using detail::S;
-using detail::P;
-using detail::F;
-using detail::kInf;
-using detail::pc_of;
-using detail::check_control;
-using detail::target_statistic;
+using namespace detail; // the shared constants and checks of search_detail.hpp
 
 // ---- continuous ----------------------------------------------------------------------
 

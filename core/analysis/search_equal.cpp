@@ -2,30 +2,16 @@
 #include "core/analysis/search.hpp"
 
 #include <algorithm>
-#include <chrono>
 #include <cmath>
-#include <condition_variable>
 #include <limits>
-#include <mutex>
-#include <numeric>
-#include <queue>
-#include <thread>
 
-#include "core/analysis/parallel.hpp"
 #include "core/io/format.hpp"
-#include "core/tuning/temperament.hpp"
 
 #include "core/analysis/search_detail.hpp"
 
 namespace terzo {
 
-using detail::S;
-using detail::P;
-using detail::F;
-using detail::kInf;
-using detail::pc_of;
-using detail::check_control;
-using detail::target_statistic;
+using namespace detail; // the shared constants and checks of search_detail.hpp
 
 EqualResult evaluate_equal(const TargetCost& cost, double period, int steps) {
     EqualResult r;
