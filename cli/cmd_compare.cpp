@@ -3,6 +3,8 @@
 
 #include "cli/commands.hpp"
 #include "cli/report_output.hpp"
+#include "cli/text_output.hpp"
+#include "core/text.hpp"
 #include "core/report/compare_report.hpp"
 #include "core/format.hpp"
 #include "core/tuning/load.hpp"
@@ -65,6 +67,7 @@ void add_compare(CLI::App& app) {
         std::vector<ComparedTuning> list;
         for (const std::string& arg : *tunings) {
             Scale scale = load_tuning(arg);
+            note_description(scale, arg);
             ComparedTuning t;
             t.name = arg;
             t.description = scale.description();
@@ -76,7 +79,7 @@ void add_compare(CLI::App& app) {
         std::string svg = o.svg.empty() ? std::string() : compare_svg(list, sp);
         std::ostringstream out;
         if (o.json) {
-            out << compare_json(list, opts, *odd_limit, sp).dump(2) << '\n';
+            out << json_text(compare_json(list, opts, *odd_limit, sp)) << '\n';
         } else if (o.csv) {
             if (part == "keys")
                 write_csv(out, keys_long_table(list, sp));
@@ -126,7 +129,7 @@ void add_compare(CLI::App& app) {
                            classes_table(list));
         }
         write_svg_file(o, svg);
-        std::cout << out.str();
+        print_text(out.str());
     });
 }
 

@@ -14,6 +14,8 @@
 #include "core/io/mts.hpp"
 #include "core/tuning/scl.hpp"
 #include "core/io/smf.hpp"
+#include "core/text.hpp"
+#include "cli/text_output.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {
@@ -98,6 +100,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
              "--table");
 
     const Scale scale = load_tuning(o.tuning);
+    note_description(scale, o.tuning);
     const KeyMap map(scale, root_key, ref ? *ref : default_key_reference(scale.size(), root_key));
     const std::string name_text = o.name.empty() ? mts_name_from_description(scale.description()) : o.name;
     const auto name = mts_name(name_text, {"--name", 0, 0});
@@ -195,9 +198,10 @@ void run_export(const ExportOptions& o, std::ostream& report) {
                                ", " + bytes_text(file.size())});
     }
     if (!o.table.empty()) {
+        map.check_frequencies(o.tuning); // the table prints every key's Hz
         std::ostringstream out;
         if (std::filesystem::path(o.table).extension() == ".json")
-            out << frequency_table_json(map).dump(2) << '\n';
+            out << json_text(frequency_table_json(map)) << '\n';
         else
             write_csv(out, frequency_table(map));
         outputs.push_back({"--table", o.table, out.str(), "frequency table of keys 0-127"});
@@ -330,7 +334,7 @@ void add_export(CLI::App& app) {
         o->bank_given = bank->count() > 0;
         std::ostringstream report;
         run_export(*o, report);
-        std::cout << report.str();
+        print_text(report.str());
     });
 }
 

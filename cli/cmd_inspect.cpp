@@ -2,7 +2,9 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
+#include "cli/text_output.hpp"
 #include "core/report/scale_report.hpp"
+#include "core/text.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {
@@ -15,16 +17,17 @@ void add_inspect(CLI::App& app) {
     cmd->add_flag("--json", *json, "Print one JSON object (keys listed in docs/formats.md)");
     cmd->callback([=] {
         Scale scale = load_tuning(*tuning);
+        note_description(scale, *tuning);
         std::ostringstream out;
         if (*json) {
-            out << scale_json(scale).dump(2) << '\n';
+            out << json_text(scale_json(scale)) << '\n';
         } else {
             out << scale.description() << '\n'
                 << scale.size() << " degrees, period " << scale.period().str()
                 << (scale.is_exact() ? "" : " (some degrees are cents-only, inexact)") << "\n\n";
             write_text(out, degree_table(scale));
         }
-        std::cout << out.str();
+        print_text(out.str());
     });
 }
 

@@ -3,6 +3,7 @@
 
 #include "cli/commands.hpp"
 #include "cli/output_file.hpp"
+#include "cli/text_output.hpp"
 #include "core/error.hpp"
 #include "core/format.hpp"
 #include "core/report/table.hpp"
@@ -123,6 +124,7 @@ void add_render(CLI::App& app) {
         check_render_settings(s, notes.size());
         check_output_file(o->out, o->force);
         const Scale scale = load_tuning(o->tuning);
+        note_description(scale, o->tuning);
         const std::vector<double> samples = render(scale, notes, s);
         const std::vector<double> hz = note_frequencies(scale, notes, s.ref_hz);
 
@@ -138,7 +140,7 @@ void add_render(CLI::App& app) {
         write_text(out, t);
         out << '\n' << hearing_caution() << '\n';
         write_wav(o->out, samples, format, o->force ? Overwrite::allow : Overwrite::refuse);
-        std::cout << out.str();
+        print_text(out.str());
     });
 }
 

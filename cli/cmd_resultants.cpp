@@ -1,6 +1,7 @@
 #include <iostream>
 
 #include "cli/commands.hpp"
+#include "cli/text_output.hpp"
 #include "core/report/resultants_report.hpp"
 #include "core/tuning/load.hpp"
 
@@ -34,7 +35,12 @@ void add_resultants(CLI::App& app) {
         opt.order = a->order;
         opt.partials = a->partials;
         check_options(opt);
-        Keyboard kb(load_tuning(a->tuning), a->ref_hz, a->span, a->tuning);
+        Scale scale = load_tuning(a->tuning);
+        note_description(scale, a->tuning);
+        if (!a->json && !a->csv && !is_printable(scale.description())) // the text goes to a terminal
+            scale = Scale(printable(scale.description()),
+                          std::vector<Pitch>(scale.degrees().begin() + 1, scale.degrees().end()), scale.period());
+        Keyboard kb(std::move(scale), a->ref_hz, a->span, a->tuning);
         ResultantsReport r;
         r.keyboard = &kb;
         r.options = opt;

@@ -3,6 +3,8 @@
 
 #include "cli/commands.hpp"
 #include "cli/report_output.hpp"
+#include "cli/text_output.hpp"
+#include "core/text.hpp"
 #include "core/format.hpp"
 #include "core/report/sheet_report.hpp"
 #include "core/tuning/load.hpp"
@@ -72,6 +74,7 @@ void add_sheet(CLI::App& app) {
         if (o.csv && part.empty()) part = "notes";
 
         Scale scale = load_tuning(*tuning);
+        note_description(scale, *tuning);
         Sheet sheet = make_sheet(scale, opts, *tuning);
         std::string svg = o.svg.empty() ? std::string() : sheet_svg(sheet, page);
         std::ostringstream out;
@@ -82,7 +85,7 @@ void add_sheet(CLI::App& app) {
             return sheet_circle_table(sheet);
         };
         if (o.json) {
-            out << sheet_json(sheet).dump(2) << '\n';
+            out << json_text(sheet_json(sheet)) << '\n';
         } else if (o.csv) {
             write_csv(out, table_of(part));
         } else {
@@ -108,7 +111,7 @@ void add_sheet(CLI::App& app) {
             out << tuning_advice << '\n';
         }
         write_svg_file(o, svg);
-        std::cout << out.str();
+        print_text(out.str());
     });
 }
 

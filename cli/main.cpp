@@ -3,6 +3,7 @@
 
 #include "cli/commands.hpp"
 #include "core/error.hpp"
+#include "core/text.hpp"
 
 int main(int argc, char** argv) {
     CLI::App app{"terzo: a workbench for tunings and temperaments, built around the combination\n"
@@ -25,13 +26,13 @@ int main(int argc, char** argv) {
     } catch (const CLI::ParseError& e) {
         if (e.get_exit_code() == 0) return app.exit(e); // --help, --version
         // One line in the same form as every other terzo error; exit status 2 for usage.
-        std::cerr << "terzo: error: " << e.what() << " (see terzo --help)\n";
+        std::cerr << "terzo: error: " << terzo::printable(e.what()) << " (see terzo --help)\n";
         return 2;
     } catch (const terzo::InputError& e) {
-        std::cerr << e.what() << '\n';
+        std::cerr << terzo::printable(e.what()) << '\n';
         return 1;
     } catch (const std::exception& e) {
-        std::cerr << "terzo: error: " << e.what() << '\n';
+        std::cerr << "terzo: error: " << terzo::printable(e.what()) << '\n';
         return 1;
     }
     return 0;

@@ -15,7 +15,9 @@ namespace terzo::cli {
 /// be written at all (a folder, a special file, a missing folder).
 inline void check_output_file(const std::filesystem::path& path, bool force) {
     std::error_code ec;
-    if (!force && std::filesystem::exists(path, ec))
+    // symlink_status: a dangling symbolic link is an existing name too (--force writes the
+    // file it points to; see atomic_file.hpp).
+    if (!force && std::filesystem::exists(std::filesystem::symlink_status(path, ec)))
         fail({path.string(), 0, 0}, "already exists and was not changed; give --force to replace it");
     check_target(path, Overwrite::allow);
 }

@@ -174,10 +174,9 @@ int main(int argc, char** argv) {
             app.status = "restored " + app.session_path.string();
         } catch (const InputError& e) {
             // Keep the unreadable file for the user and start afresh beside it.
-            auto kept = app.session_path;
-            kept += ".unreadable";
-            std::filesystem::rename(app.session_path, kept, ec);
-            app.error = std::string(e.what()) + " (kept as " + kept.string() + "; started a fresh session)";
+            const auto kept = keep_unreadable_session(app.session_path);
+            app.error = std::string(e.what()) + (kept.empty() ? " (could not move it aside" : " (kept as " + kept.string()) +
+                        "; started a fresh session)";
         }
     }
     for (const std::string& t : opt.tunings) {

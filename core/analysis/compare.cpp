@@ -3,10 +3,12 @@
 #include <algorithm>
 #include <charconv>
 #include <cmath>
+#include <cstdio>
 #include <fstream>
 #include <numeric>
 
 #include "core/analysis/chord.hpp"
+#include "core/input_file.hpp"
 #include "core/analysis/fit.hpp"
 
 namespace terzo {
@@ -76,8 +78,7 @@ KeyWeights parse_key_weights(std::istream& in, const std::string& source) {
 }
 
 KeyWeights read_key_weights(const std::filesystem::path& path) {
-    std::ifstream in(path);
-    if (!in) fail({path.string(), 0, 0}, "cannot open the weights file");
+    std::ifstream in = open_input_file(path, max_key_weights_bytes, "a weights file");
     return parse_key_weights(in, path.string());
 }
 
@@ -168,7 +169,15 @@ KeyComparison compare_keys(const Scale& scale, const CompareOptions& options,
         check_options(tones);
         // The keyboard's reference is the tonic in octave 4, so note (degree, period) of the
         // keyboard is the same sound as the NoteMap's note.
-        Keyboard keyboard(scale, map.hz(NoteName{options.tonic, 4}), 1);
+        const double tonic_hz = map.hz(NoteName{options.tonic, 4});
+        if (!(tonic_hz >= min_ref_hz && tonic_hz <= max_ref_hz)) {
+            char text[256];
+            std::snprintf(text, sizeof text,
+                          "at this reference the tonic in octave 4 would sound at %g Hz; the fit needs it within %g to %g Hz",
+                          tonic_hz, min_ref_hz, max_ref_hz);
+            fail({"--pitch", 0, 0}, text);
+        }
+        Keyboard keyboard(scale, tonic_hz, 1, name);
         auto keyboard_note = [&](const NoteName& n) {
             int m = midi_key(n) - (60 + options.tonic);
             int period = m >= 0 ? m / 12 : -((-m + 11) / 12);

@@ -5,6 +5,7 @@
 #pragma once
 
 #include <array>
+#include <cstdint>
 #include <filesystem>
 #include <istream>
 #include <optional>
@@ -39,6 +40,9 @@ constexpr double max_key_weight = 1e6;
 /// naming the source, line and column.
 KeyWeights parse_key_weights(std::istream& in, const std::string& source);
 /// The same from a file.
+/// Most bytes a weights file may have: 24 keys take a few hundred; the 10000 lines allowed
+/// with comments fit many times over.
+inline constexpr std::uintmax_t max_key_weights_bytes = 1u << 20;
 KeyWeights read_key_weights(const std::filesystem::path& path);
 
 /// The triad of one key in one tuning.

@@ -96,6 +96,7 @@ std::vector<std::string> collect_tunings(const std::vector<std::string>& argumen
             }
         }
         if (ec) failures.push_back({arg, arg + ": error: cannot read the folder: " + ec.message()});
+        else if (found.empty()) failures.push_back({arg, arg + ": error: no .scl files in this folder or below it"});
         std::sort(found.begin(), found.end());
         for (auto& f : found) add(std::move(f));
     }
@@ -106,8 +107,16 @@ double measure_tuning(const Scale& scale, RankMetric metric, const std::string& 
     if (metric == RankMetric::fit) {
         // The fit as `terzo resultants` prints it: every dyad of one period from the default
         // reference, default tone options.
-        Keyboard kb(scale);
-        return fit(keyboard_tones(kb, ToneOptions{})).rms_cents;
+        try {
+            Keyboard kb(scale, default_ref_hz, 1, name);
+            return fit(keyboard_tones(kb, ToneOptions{})).rms_cents;
+        } catch (const InputError& e) {
+            if (e.pos().source == name) throw;
+            // A limit of the resultants engine, whose message names options rank does not have.
+            std::string m = e.message();
+            m = m.substr(0, m.find("; lower"));
+            fail({name, 0, 0}, "the fit is not computed: " + m);
+        }
     }
     if (scale.size() == 12 && scale.period() == Pitch::from_ratio(Ratio(2))) {
         // The same figures as the key comparison's summary (cost_test.cpp checks that they

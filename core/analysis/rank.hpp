@@ -53,7 +53,7 @@ struct Ranking {
 
 /// The files a ranking reads: a file argument as given (any extension), a folder's files
 /// ending in .scl (any case) at any depth, each list sorted by path. An argument that does not
-/// exist, or a folder that cannot be read, becomes a failure. InputError at "FILES" when more
+/// exist, or a folder that cannot be read or holds no .scl file, becomes a failure. InputError at "FILES" when more
 /// than max_rank_files are found.
 std::vector<std::string> collect_tunings(const std::vector<std::string>& arguments, std::vector<RankFailure>& failures);
 /// The metric of one tuning; InputError (naming `name`) when it does not apply, e.g. a key

@@ -1,6 +1,7 @@
 #include "core/analysis/sheet.hpp"
 
 #include <cmath>
+#include <cstdio>
 
 namespace terzo {
 
@@ -26,6 +27,14 @@ NoteMap::NoteMap(const Scale& scale, int tonic, PitchReference ref, const std::s
     if (scale.size() != 12)
         fail({source, 0, 0}, "this needs a 12-note tuning to name its notes C, C#, D …; it has " +
                                  std::to_string(scale.size()) + " degrees");
+    const double period = scale.period().cents();
+    if (period < min_octave_cents || period > max_octave_cents)
+    {
+        char cents[256];
+        std::snprintf(cents, sizeof cents, " (%.3f c); an octave, stretched or not, is %.0f to %.0f c", period,
+                      min_octave_cents, max_octave_cents);
+        fail({source, 0, 0}, "this names notes by octaves, but the period of this tuning is " + scale.period().str() + cents);
+    }
     TERZO_ASSERT(tonic >= 0 && tonic < 12);
     ref_position_cents_ = position(ref.note).cents();
 }

@@ -17,9 +17,14 @@ namespace terzo {
 /// A 12-note tuning on the keyboard: degree d sounds on pitch class tonic + d, degree 0 of
 /// octave 4 is the tonic in octave 4 (C4 when the tonic is C), periods stack above and below,
 /// and the reference note sounds at the reference frequency.
+/// The periods a NoteMap accepts as octaves: a stretched or compressed octave, at most a
+/// quarter tone from 2/1, still takes octave numbers; a 3/1 period does not.
+inline constexpr double min_octave_cents = 1150, max_octave_cents = 1250;
+
 class NoteMap {
   public:
-    /// Throws InputError at {source} unless the scale has exactly 12 degrees.
+    /// Throws InputError at {source} unless the scale has exactly 12 degrees and its period
+    /// lies within min_octave_cents..max_octave_cents.
     NoteMap(const Scale& scale, int tonic, PitchReference ref, const std::string& source);
 
     int tonic() const { return tonic_; }

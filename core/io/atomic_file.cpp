@@ -7,6 +7,7 @@
 #include <string>
 
 #include <fcntl.h>
+#include <signal.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
@@ -39,7 +40,73 @@ bool write_all(int fd, const std::string& data) {
     return true;
 }
 
+// Temporary names: short, so that a target of 255 bytes still works, and carrying the
+// process id, so that a later run can tell a leftover of a killed process from the temporary
+// of one still writing.
+constexpr const char* temporary_prefix = ".tz-";
+
+std::string temporary_template(const std::filesystem::path& dir) {
+    return (dir / (temporary_prefix + std::to_string(::getpid()) + "-XXXXXX")).string();
+}
+
+// The file a write to path replaces: path itself, or the end of its chain of symbolic links.
+std::filesystem::path write_target(std::filesystem::path path) {
+    namespace fs = std::filesystem;
+    for (int hops = 0; hops < 40; ++hops) {
+        std::error_code ec;
+        if (!fs::is_symlink(fs::symlink_status(path, ec))) break;
+        fs::path to = fs::read_symlink(path, ec);
+        if (ec) break;
+        path = to.is_absolute() ? to : path.parent_path() / to;
+    }
+    return path;
+}
+
+// Creates path with data, flushed to disk; on failure removes it and throws InputError at pos.
+void write_new_file(const std::string& path, const std::string& data, const SourcePos& pos,
+                    const std::string& unchanged) {
+    int fd = ::open(path.c_str(), O_WRONLY | O_CREAT | O_EXCL | O_CLOEXEC, 0644);
+    if (fd < 0) fail(pos, "cannot create a file in the temporary folder: " + errno_text() + unchanged);
+    if (!write_all(fd, data) || ::fsync(fd) != 0) {
+        std::string reason = errno_text();
+        ::close(fd);
+        ::unlink(path.c_str());
+        fail(pos, "cannot write: " + reason + unchanged);
+    }
+    if (::close(fd) != 0) {
+        std::string reason = errno_text();
+        ::unlink(path.c_str());
+        fail(pos, "cannot close: " + reason + unchanged);
+    }
+}
+
+void sync_folder(const std::filesystem::path& dir) {
+    int dfd = ::open(dir.c_str(), O_RDONLY | O_DIRECTORY);
+    if (dfd >= 0) {
+        ::fsync(dfd);
+        ::close(dfd);
+    }
+}
+
 } // namespace
+
+void remove_stale_temporaries(const std::filesystem::path& folder) {
+    namespace fs = std::filesystem;
+    std::error_code ec;
+    fs::directory_iterator it(folder.empty() ? fs::path(".") : folder, ec), end;
+    for (; !ec && it != end; it.increment(ec)) {
+        const std::string name = it->path().filename().string();
+        if (name.rfind(temporary_prefix, 0) != 0) continue;
+        std::size_t i = std::strlen(temporary_prefix);
+        long long pid = 0;
+        for (; i < name.size() && name[i] >= '0' && name[i] <= '9' && pid < 100000000; ++i)
+            pid = pid * 10 + (name[i] - '0');
+        if (i >= name.size() || name[i] != '-' || pid <= 0 || pid == ::getpid()) continue;
+        if (::kill(static_cast<pid_t>(pid), 0) == 0 || errno != ESRCH) continue; // still running
+        std::error_code e2;
+        fs::remove_all(it->path(), e2);
+    }
+}
 
 void check_target(const std::filesystem::path& path, Overwrite overwrite) {
     namespace fs = std::filesystem;
@@ -50,12 +117,15 @@ void check_target(const std::filesystem::path& path, Overwrite overwrite) {
     // Renaming over a device or a pipe would replace it with a plain file.
     if (fs::exists(st) && !fs::is_regular_file(st))
         fail(pos, "is not a regular file (a device, pipe or socket); give a file name");
-    if (overwrite == Overwrite::refuse && fs::exists(st))
+    // A dangling symbolic link exists as a name: refused like any existing file.
+    if (overwrite == Overwrite::refuse && fs::exists(fs::symlink_status(path, ec)))
         fail(pos, "already exists and was not changed (allow overwriting to replace it)");
-    // The folder is checked by its absolute name but named as the user wrote it.
+    // The folder is checked by its absolute name but named as the user wrote it; through a
+    // symbolic link, it is the folder of the file the link points to.
+    const fs::path target = write_target(path);
     const fs::file_status dir_st =
-        fs::status(fs::absolute(path, ec).lexically_normal().parent_path(), ec);
-    const std::string dir = path.has_parent_path() ? path.parent_path().string() : ".";
+        fs::status(fs::absolute(target, ec).lexically_normal().parent_path(), ec);
+    const std::string dir = target.has_parent_path() ? target.parent_path().string() : ".";
     if (!fs::exists(dir_st)) fail(pos, "folder " + dir + " does not exist");
     if (!fs::is_directory(dir_st)) fail(pos, dir + " is a file, not a folder");
 }
@@ -64,8 +134,9 @@ void write_file_atomically(const std::filesystem::path& path,
                            const std::function<void(std::ostream&)>& write, Overwrite overwrite) {
     const SourcePos pos{path.string(), 0, 0};
     check_target(path, overwrite);
+    const std::filesystem::path target = write_target(path);
     std::error_code ec;
-    const std::string unchanged = std::filesystem::exists(path, ec)
+    const std::string unchanged = std::filesystem::exists(target, ec)
                                       ? "; the existing file was not changed"
                                       : "; no file was created";
 
@@ -73,9 +144,10 @@ void write_file_atomically(const std::filesystem::path& path,
     write(buffer); // may throw; nothing is on disk yet
     const std::string data = buffer.str();
 
-    std::filesystem::path dir = path.parent_path();
+    std::filesystem::path dir = target.parent_path();
     if (dir.empty()) dir = ".";
-    std::string tmpl = (dir / ("." + path.filename().string() + ".tmp-XXXXXX")).string();
+    remove_stale_temporaries(dir);
+    std::string tmpl = temporary_template(dir);
     int fd = ::mkstemp(tmpl.data());
     if (fd < 0) fail(pos, "cannot create a file in " + dir.string() + ": " + errno_text());
     auto give_up = [&](const std::string& what) {
@@ -95,23 +167,86 @@ void write_file_atomically(const std::filesystem::path& path,
     }
     if (overwrite == Overwrite::refuse) {
         // link() fails if the target appeared meanwhile, so a concurrent file is never lost.
-        if (::link(tmpl.c_str(), path.c_str()) != 0) {
+        if (::link(tmpl.c_str(), target.c_str()) != 0) {
             std::string reason = errno_text();
             ::unlink(tmpl.c_str());
             fail(pos, "cannot create: " + reason);
         }
         ::unlink(tmpl.c_str());
-    } else if (std::rename(tmpl.c_str(), path.c_str()) != 0) {
+    } else if (std::rename(tmpl.c_str(), target.c_str()) != 0) {
         std::string reason = errno_text();
         ::unlink(tmpl.c_str());
         fail(pos, "cannot replace: " + reason + unchanged);
     }
-    // Make the rename itself durable.
-    int dfd = ::open(dir.c_str(), O_RDONLY | O_DIRECTORY);
-    if (dfd >= 0) {
-        ::fsync(dfd);
-        ::close(dfd);
+    sync_folder(dir); // make the rename itself durable
+}
+
+std::vector<std::filesystem::path> write_file_set(const std::filesystem::path& folder,
+                                                  const std::vector<FileContent>& files,
+                                                  Overwrite overwrite, const std::string& option) {
+    namespace fs = std::filesystem;
+    const SourcePos at{option, 0, 0};
+    std::error_code ec;
+    const fs::file_status st = fs::status(folder, ec);
+    if (fs::exists(st) && !fs::is_directory(st))
+        fail(at, folder.string() + " is a file, not a folder (no file was written)");
+    const bool existed = fs::exists(st);
+    std::vector<fs::path> paths;
+    for (const FileContent& f : files) paths.push_back(folder / f.name);
+    if (existed)
+        for (const fs::path& p : paths) check_target(p, overwrite);
+    // The staging folder sits where the files will end up, so the final moves are renames
+    // within one file system and need no space.
+    fs::path base = existed ? folder : fs::absolute(folder, ec).lexically_normal().parent_path();
+    if (!existed) {
+        fs::create_directories(base, ec);
+        if (ec) fail(at, "cannot create the folder " + base.string() + ": " + ec.message() + " (no file was written)");
     }
+    remove_stale_temporaries(base);
+    std::string stage = temporary_template(base);
+    if (::mkdtemp(stage.data()) == nullptr)
+        fail(at, "cannot create a temporary folder in " + base.string() + ": " + errno_text() +
+                     " (no file was written)");
+    auto give_up = [&](const SourcePos& pos, const std::string& message) {
+        std::error_code e2;
+        fs::remove_all(stage, e2);
+        fail(pos, message);
+    };
+    const std::string unchanged = existed ? "; no file in the folder was created or changed" : "; no file was created";
+    for (std::size_t i = 0; i < files.size(); ++i) {
+        try {
+            write_new_file((fs::path(stage) / files[i].name).string(), files[i].data, {paths[i].string(), 0, 0}, unchanged);
+        } catch (const InputError& e) {
+            give_up(e.pos(), e.message());
+        }
+    }
+    sync_folder(stage);
+    if (!existed && ::rename(stage.c_str(), folder.c_str()) == 0) {
+        ::chmod(folder.c_str(), 0755); // mkdtemp makes it 0700; a new folder gets the usual permissions
+        sync_folder(base);
+        return paths;
+    }
+    // Into an existing folder (or one that appeared meanwhile): file by file. Only a change
+    // on disk since the checks above can make one of these fail.
+    std::vector<std::string> moved;
+    for (std::size_t i = 0; i < files.size(); ++i) {
+        const std::string from = (fs::path(stage) / files[i].name).string();
+        const fs::path to = write_target(paths[i]);
+        const bool ok = overwrite == Overwrite::refuse ? ::link(from.c_str(), to.c_str()) == 0
+                                                       : ::rename(from.c_str(), to.c_str()) == 0;
+        if (!ok) {
+            std::string reason = errno_text();
+            give_up({paths[i].string(), 0, 0},
+                    "cannot move into place: " + reason +
+                        (moved.empty() ? unchanged : "; already in place: " + std::to_string(moved.size()) + " of " +
+                                                         std::to_string(files.size()) + " files, the first " + moved.front()));
+        }
+        moved.push_back(paths[i].string());
+    }
+    std::error_code e2;
+    fs::remove_all(stage, e2);
+    sync_folder(folder);
+    return paths;
 }
 
 } // namespace terzo

@@ -1,11 +1,17 @@
 // Writing files so that a crash, a full disk or a killed process never leaves a
 // half-written file: the content goes to a temporary file in the same folder, is flushed to
-// disk, and is then renamed over the target in one step.
+// disk, and is then renamed over the target in one step. Temporary names are short
+// (".tz-<process id>-XXXXXX", so a target may have the longest name the folder allows) and a
+// temporary that a killed terzo left behind is removed by the next write into that folder.
+// A target that is a symbolic link is written through: the file it points to is replaced
+// (created, for a dangling link) and the link is kept.
 #pragma once
 
 #include <filesystem>
 #include <functional>
 #include <ostream>
+#include <string>
+#include <vector>
 
 namespace terzo {
 
@@ -25,5 +31,24 @@ void check_target(const std::filesystem::path& path, Overwrite overwrite);
 void write_file_atomically(const std::filesystem::path& path,
                            const std::function<void(std::ostream&)>& write,
                            Overwrite overwrite = Overwrite::refuse);
+
+/// One file of a set: its name inside the set's folder and its bytes.
+struct FileContent {
+    std::string name;
+    std::string data;
+};
+
+/// Writes every file into folder (created with its parents when missing) or none: all are
+/// written and flushed in a temporary folder first (inside folder, or beside it when folder is
+/// new) and moved into place only when complete, so a full disk or a killed process changes
+/// nothing. Runs check_target on every file first. `option` names the folder in messages
+/// (e.g. "--write-scl"). Returns the paths written, in order.
+std::vector<std::filesystem::path> write_file_set(const std::filesystem::path& folder,
+                                                  const std::vector<FileContent>& files,
+                                                  Overwrite overwrite, const std::string& option);
+
+/// Removes the temporary files and folders that terzo processes which no longer run left in
+/// folder (a killed write); those of running processes are kept. Errors are ignored.
+void remove_stale_temporaries(const std::filesystem::path& folder);
 
 } // namespace terzo

@@ -1,17 +1,21 @@
 #include "core/io/session.hpp"
 
 #include <algorithm>
+#include <cerrno>
 #include <cmath>
 #include <fstream>
 #include <iterator>
 #include <sstream>
 
 #include <nlohmann/json.hpp>
+#include <unistd.h>
 
 #include "core/error.hpp"
+#include "core/input_file.hpp"
 #include "core/io/atomic_file.hpp"
 #include "core/format.hpp"
 #include "core/tuning/scl.hpp"
+#include "core/text.hpp"
 #include "core/tuning/note_names.hpp"
 
 namespace terzo {
@@ -182,7 +186,7 @@ void write_session(std::ostream& out, const Session& session) {
                {"selection", session.selection},
                {"view", session.view},
                {"volume", session.volume}};
-    out << j.dump(2) << '\n';
+    out << json_text(j) << '\n';
 }
 
 Session read_session(std::istream& in, const std::string& source) {
@@ -260,12 +264,22 @@ Session read_session(std::istream& in, const std::string& source) {
 }
 
 Session load_session_file(const std::filesystem::path& path) {
-    std::error_code ec;
-    if (std::filesystem::is_directory(path, ec))
-        fail({path.string(), 0, 0}, "is a folder, not a session file");
-    std::ifstream in(path, std::ios::binary);
-    if (!in) fail({path.string(), 0, 0}, "cannot open the session file for reading");
+    std::ifstream in = open_input_file(path, max_session_bytes, "a session file");
     return read_session(in, path.string());
+}
+
+std::filesystem::path keep_unreadable_session(const std::filesystem::path& path) {
+    for (int n = 1; n <= 1000; ++n) {
+        std::filesystem::path kept = path;
+        kept += n == 1 ? std::string(".unreadable") : ".unreadable-" + std::to_string(n);
+        // link() refuses an existing name, where rename() would replace it.
+        if (::link(path.c_str(), kept.c_str()) == 0) {
+            ::unlink(path.c_str());
+            return kept;
+        }
+        if (errno != EEXIST) break;
+    }
+    return {};
 }
 
 void save_session_file(const std::filesystem::path& path, const Session& session) {

@@ -63,5 +63,9 @@ Session read_session(std::istream& in, const std::string& source);
 Session load_session_file(const std::filesystem::path& path);
 /// Writes a session file atomically, replacing an older one (sessions are saved over).
 void save_session_file(const std::filesystem::path& path, const Session& session);
+/// Moves an unreadable session file aside to the first free name of "<path>.unreadable",
+/// "<path>.unreadable-2" … (an earlier one is never replaced) and returns that name; empty
+/// when it could not be moved.
+std::filesystem::path keep_unreadable_session(const std::filesystem::path& path);
 
 } // namespace terzo

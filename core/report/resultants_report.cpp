@@ -132,18 +132,18 @@ json resultants_json(const ResultantsReport& r) {
 
 void write_resultants_json(std::ostream& out, const ResultantsReport& r) {
     if (r.dyads.empty()) {
-        out << document(r, json::array()).dump(2) << '\n';
+        out << document(r, json::array()).dump(2, ' ', false, json::error_handler_t::replace) << '\n';
         return;
     }
     // The document with a marker where the dyads go; each dyad is dumped on its own and
     // indented by the two levels it sits at, which is exactly what dump(2) would print.
     const std::string marker = "\"@dyads@\"";
-    const std::string text = document(r, json("@dyads@")).dump(2);
+    const std::string text = document(r, json("@dyads@")).dump(2, ' ', false, json::error_handler_t::replace);
     const std::size_t at = text.find(marker);
     TERZO_ASSERT(at != std::string::npos);
     out << text.substr(0, at) << "[\n";
     for (std::size_t i = 0; i < r.dyads.size(); ++i) {
-        const std::string d = dyad_json(r.dyads[i]).dump(2);
+        const std::string d = dyad_json(r.dyads[i]).dump(2, ' ', false, json::error_handler_t::replace);
         out << "    ";
         for (char c : d) {
             out << c;

@@ -1,6 +1,9 @@
 #include "core/tuning/key_map.hpp"
 
 #include <cmath>
+#include <cstdio>
+
+#include "core/error.hpp"
 
 namespace terzo {
 
@@ -38,6 +41,17 @@ KeyMap::KeyMap(Scale scale, int root_key, KeyReference ref)
     TERZO_ASSERT(std::isfinite(ref.hz) && ref.hz > 0);
     TERZO_ASSERT(scale_.size() > 0);
     root_hz_ = ref_.hz * std::exp2(-cents_from_root(ref_.key) / 1200.0);
+}
+
+void KeyMap::check_frequencies(const std::string& source) const {
+    for (int key = lowest_key; key <= highest_key; ++key) {
+        const double hz = at(key).hz;
+        if (std::isnormal(hz)) continue;
+        char text[256];
+        std::snprintf(text, sizeof text, "%g Hz, outside the numbers terzo computes with; the period (%.3f c)", hz,
+                      scale_.period().cents());
+        fail({source, 0, 0}, "key " + std::to_string(key) + " would sound at " + text + " is too large for 128 keys");
+    }
 }
 
 double KeyMap::cents_from_root(int key) const {

@@ -52,6 +52,9 @@ class KeyMap {
     /// Lays scale over the keys: root_key (0..127) plays degree 0 and ref fixes the pitch.
     /// root_key and ref.key are checked with TERZO_ASSERT; the CLI checks them first.
     KeyMap(Scale scale, int root_key, KeyReference ref);
+    /// InputError at source when a key 0..127 would sound at a frequency that is not a finite,
+    /// normal number of Hz (a period of millions of cents overflows a double within 128 keys).
+    void check_frequencies(const std::string& source) const;
 
     const Scale& scale() const { return scale_; }
     int root_key() const { return root_key_; }

@@ -97,28 +97,23 @@ std::string library_scl_text(const LibraryEntry& entry) {
     std::vector<Pitch> above(built.degrees().begin() + 1, built.degrees().end());
     Scale scale(entry.title, std::move(above), built.period());
 
-    std::ostringstream comments;
+    std::vector<std::string> comments;
     for (std::size_t i = 0; i < entry.sources.size(); ++i)
-        comments << (i == 0 ? "! Source: " : "!         ") << entry.sources[i] << "\n";
-    comments << "! Recipe: " << entry.recipe << "\n";
+        comments.push_back((i == 0 ? "Source: " : "        ") + entry.sources[i]);
+    comments.push_back("Recipe: " + entry.recipe);
     if (entry.letter_names) {
         TERZO_ASSERT(scale.size() == 12);
-        comments << "! Degrees 0-11:";
+        std::string names = "Degrees 0-11:";
         for (int pc = 0; pc < 12; ++pc)
-            comments << ' ' << pitch_class_name(pc, entry.spelling);
-        comments << "\n";
+            names += ' ' + pitch_class_name(pc, entry.spelling);
+        comments.push_back(names);
     }
-    comments << "! Tags: [S] source read, [M] from memory (not re-read), [CP] common practice, no "
-                "source.\n";
-    comments << "! Computed by terzo from the recipe above; not copied from any scale archive.\n";
+    comments.push_back("Tags: [S] source read, [M] from memory (not re-read), [CP] common practice, no source.");
+    comments.push_back("Computed by terzo from the recipe above; not copied from any scale archive.");
 
     std::ostringstream scl;
-    write_scl(scl, scale, entry.file);
-    std::string text = scl.str();
-    auto first_line_end = text.find('\n');
-    TERZO_ASSERT(first_line_end != std::string::npos);
-    text.insert(first_line_end + 1, comments.str());
-    return text;
+    write_scl(scl, scale, entry.file, comments);
+    return scl.str();
 }
 
 } // namespace terzo

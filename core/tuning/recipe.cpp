@@ -339,6 +339,9 @@ class RecipeReader {
         for (const Token& t : tokens_) {
             if (t.text == "|") {
                 if (stages.back().empty()) fail_at(t.column, "expected a recipe before '|'");
+                if (stages.size() > max_recipe_modifiers)
+                    fail_at(t.column, "more than " + std::to_string(max_recipe_modifiers) +
+                                          " modifiers; a recipe takes at most that many steps after '|'");
                 stages.emplace_back();
                 bar_columns_.push_back(t.column);
             } else {

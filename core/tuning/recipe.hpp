@@ -21,6 +21,11 @@ inline constexpr std::size_t max_recipe_set = 64;
 /// Largest numerator or denominator of an exponent or a comma fraction.
 inline constexpr long long max_recipe_exponent = 10000;
 
+/// Most modifiers after a construction: each one recomputes every degree exactly, which for
+/// the largest exact tunings (4096 degrees with numbers of thousands of digits) takes up to
+/// about a second, so the limit keeps any recipe within seconds.
+inline constexpr std::size_t max_recipe_modifiers = 16;
+
 /// The words a recipe can start with.
 inline constexpr std::string_view recipe_kinds =
     "equal, chain, meantone, fifths, harmonics, subharmonics, diamond, products, list";

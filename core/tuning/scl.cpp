@@ -8,14 +8,11 @@
 #include <system_error>
 #include <vector>
 
+#include "core/input_file.hpp"
+
 namespace terzo {
 
 namespace {
-
-struct Line {
-    int number;
-    std::string text;
-};
 
 bool is_space(char c) { return c == ' ' || c == '\t' || c == '\v' || c == '\f'; }
 
@@ -69,79 +66,121 @@ Pitch parse_pitch(std::string_view token, const SourcePos& pos) {
 
 } // namespace
 
+namespace {
+
+// Reads lines one at a time with the bytes counted, so that memory stays at one line
+// however large the input, and a NUL byte is reported where it is met.
+class LineReader {
+public:
+    LineReader(std::istream& in, const std::string& source) : in_(in), source_(source) {}
+    bool next(std::string& line) {
+        line.clear();
+        std::streambuf* buf = in_.rdbuf();
+        if (!buf) return false;
+        bool any = false;
+        for (int c; (c = buf->sbumpc()) != std::char_traits<char>::eof();) {
+            any = true;
+            if (++bytes_ > max_scl_bytes)
+                fail({source_, number_ + 1, 0}, "the file is larger than " + size_text(max_scl_bytes) +
+                                                    ", the most terzo reads as a .scl file");
+            if (c == '\n') break;
+            if (c == '\0')
+                fail({source_, number_ + 1, static_cast<int>(line.size()) + 1},
+                     "contains a NUL byte; a .scl file is plain text");
+            line.push_back(static_cast<char>(c));
+        }
+        if (any) ++number_;
+        return any;
+    }
+    int number() const { return number_; }
+
+private:
+    std::istream& in_;
+    const std::string& source_;
+    std::uintmax_t bytes_ = 0;
+    int number_ = 0;
+};
+
+} // namespace
+
 Scale read_scl(std::istream& in, const std::string& source) {
-    std::vector<Line> lines; // the non-comment lines
+    LineReader reader(in, source);
     std::string text;
-    int number = 0;
-    while (std::getline(in, text)) {
-        ++number;
+    std::optional<std::string> description;
+    int description_line = 0, count_line = 0, period_line = 0;
+    std::optional<std::size_t> count;
+    std::vector<Pitch> pitches;
+    while (reader.next(text)) {
+        const int number = reader.number();
         if (number == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) text.erase(0, 3); // UTF-8 BOM
         if (!text.empty() && text.back() == '\r') text.pop_back();
-        if (text.find('\0') != std::string::npos)
-            fail({source, number, 0}, "contains a NUL byte; a .scl file is plain text");
         if (!text.empty() && text[0] == '!') continue;
-        lines.push_back({number, std::move(text)});
+        if (!description) {
+            description = std::string(trim(text));
+            description_line = number;
+            continue;
+        }
+        if (!count) {
+            auto [count_token, count_column] = first_token(text);
+            SourcePos count_pos{source, number, count_column};
+            if (count_token.empty()) fail(count_pos, "expected the note count, found an empty line");
+            std::size_t n = 0;
+            for (char c : count_token) {
+                if (c < '0' || c > '9')
+                    fail(count_pos, "expected the note count (a whole number), found " + excerpt(count_token));
+                n = n * 10 + std::size_t(c - '0');
+                if (n > max_scale_size)
+                    fail(count_pos, "note count " + std::string(count_token.substr(0, 40)) + " is larger than " +
+                                        std::to_string(max_scale_size) + ", the largest scale terzo accepts");
+            }
+            if (n == 0) fail(count_pos, "note count is 0; a scale needs at least its period");
+            count = n;
+            count_line = number;
+            pitches.reserve(n);
+            continue;
+        }
+        if (pitches.size() < *count) {
+            auto [token, column] = first_token(text);
+            SourcePos pos{source, number, column};
+            if (token.empty())
+                fail(pos, "expected pitch " + std::to_string(pitches.size() + 1) + " of " + std::to_string(*count) +
+                              ", found an empty line");
+            // Text after the pitch is a comment, but "3 / 2" is a ratio written with spaces,
+            // and reading it as 3 would be silently wrong.
+            std::string_view rest(text);
+            rest.remove_prefix(static_cast<std::size_t>(column - 1) + token.size());
+            std::string_view next = first_token(rest).first;
+            if (!next.empty() && next[0] == '/' && token.find_first_of("./") == std::string_view::npos)
+                fail(pos, "a ratio with spaces around its '/' in " + excerpt(trim(text)) +
+                              "; write it without spaces, such as 3/2");
+            pitches.push_back(parse_pitch(token, pos));
+            period_line = number;
+            continue;
+        }
+        if (!trim(text).empty())
+            fail({source, number, first_token(text).second},
+                 "more pitches than the count of " + std::to_string(*count) + " on line " + std::to_string(count_line));
     }
+    const int number = reader.number();
     if (number == 0) fail({source, 0, 0}, "empty file; expected a description line");
-    if (lines.empty()) fail({source, number, 0}, "only comments; expected a description line");
-
-    std::string description(trim(lines[0].text));
-    if (lines.size() < 2)
+    if (!description) fail({source, number, 0}, "only comments; expected a description line");
+    if (!count)
         fail({source, number, 0}, "missing the note count after the description on line " +
-                                      std::to_string(lines[0].number));
-
-    const Line& count_line = lines[1];
-    auto [count_token, count_column] = first_token(count_line.text);
-    SourcePos count_pos{source, count_line.number, count_column};
-    if (count_token.empty()) fail(count_pos, "expected the note count, found an empty line");
-    std::size_t count = 0;
-    for (char c : count_token) {
-        if (c < '0' || c > '9')
-            fail(count_pos, "expected the note count (a whole number), found " +
-                                excerpt(count_token));
-        count = count * 10 + std::size_t(c - '0');
-        if (count > max_scale_size)
-            fail(count_pos, "note count " + std::string(count_token.substr(0, 40)) + " is larger than " +
-                                std::to_string(max_scale_size) + ", the largest scale terzo accepts");
-    }
-    if (count == 0) fail(count_pos, "note count is 0; a scale needs at least its period");
-
-    std::vector<Pitch> pitches;
-    pitches.reserve(count);
-    std::size_t i = 2;
-    for (; i < lines.size() && pitches.size() < count; ++i) {
-        auto [token, column] = first_token(lines[i].text);
-        SourcePos pos{source, lines[i].number, column};
-        if (token.empty())
-            fail(pos, "expected pitch " + std::to_string(pitches.size() + 1) + " of " +
-                          std::to_string(count) + ", found an empty line");
-        pitches.push_back(parse_pitch(token, pos));
-    }
-    if (pitches.size() < count)
-        fail({source, number, 0}, "the count on line " + std::to_string(count_line.number) +
-                                      " says " + std::to_string(count) + " pitches, but the file has " +
+                                      std::to_string(description_line));
+    if (pitches.size() < *count)
+        fail({source, number, 0}, "the count on line " + std::to_string(count_line) + " says " +
+                                      std::to_string(*count) + " pitches, but the file has " +
                                       std::to_string(pitches.size()));
-    for (; i < lines.size(); ++i) {
-        if (!trim(lines[i].text).empty())
-            fail({source, lines[i].number, first_token(lines[i].text).second},
-                 "more pitches than the count of " + std::to_string(count) + " on line " +
-                     std::to_string(count_line.number));
-    }
 
     Pitch period = pitches.back();
     pitches.pop_back();
     if (period.cents() <= 0.0)
-        fail({source, lines[i - 1].number, 0},
-             "the period (the last pitch, " + period.str() + ") must be larger than 1/1");
-    return Scale(std::move(description), std::move(pitches), std::move(period));
+        fail({source, period_line, 0}, "the period (the last pitch, " + period.str() + ") must be larger than 1/1");
+    return Scale(std::move(*description), std::move(pitches), std::move(period));
 }
 
 Scale read_scl_file(const std::filesystem::path& path) {
-    std::error_code ec;
-    if (std::filesystem::is_directory(path, ec))
-        fail({path.string(), 0, 0}, "is a folder, not a .scl file");
-    std::ifstream in(path, std::ios::binary);
-    if (!in) fail({path.string(), 0, 0}, "cannot open the file for reading");
+    std::ifstream in = open_input_file(path, max_scl_bytes, "a .scl file");
     return read_scl(in, path.string());
 }
 
@@ -162,8 +201,15 @@ std::string scl_cents_text(double cents) {
     return s;
 }
 
-void write_scl(std::ostream& out, const Scale& scale, const std::string& file_name) {
-    out << "! " << file_name << "\n!\n";
+void write_scl(std::ostream& out, const Scale& scale, const std::string& file_name,
+               const std::vector<std::string>& comments) {
+    out << "! " << file_name << "\n";
+    for (std::string line : comments) {
+        for (char& c : line)
+            if (c == '\n' || c == '\r') c = ' ';
+        out << "! " << line << "\n";
+    }
+    out << "!\n";
     // A description starting with '!' would read back as a comment; the reader trims the space.
     const std::string& d = scale.description();
     out << (d.empty() || d[0] != '!' ? "" : " ") << d << "\n";

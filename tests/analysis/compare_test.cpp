@@ -136,7 +136,7 @@ TEST_CASE("the weights file is parsed strictly", "[compare]") {
         REQUIRE_THROWS_WITH(weights_of("# nothing\nC major 0\n"),
                             "w.txt: error: no key has a positive weight");
         REQUIRE_THROWS_WITH(read_key_weights("/nonexistent/w.txt"),
-                            "/nonexistent/w.txt: error: cannot open the weights file");
+                            "/nonexistent/w.txt: error: no such file");
         std::string many(10001, '\n');
         REQUIRE_THROWS_WITH(weights_of(many),
                             "w.txt:10001:1: error: a weights file has at most 10000 lines");

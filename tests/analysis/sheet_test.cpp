@@ -233,3 +233,17 @@ TEST_CASE("notes in other periods stack the tuning's own period", "[sheet]") {
     CHECK(et.interval(note("C-1"), note("C9")) == Pitch::from_ratio(Ratio(1024)));
     CHECK(et.hz(note("C-1")) == Approx(8.175799).margin(1e-6)); // MIDI key 0 at A4 = 440 [CP]
 }
+
+TEST_CASE("a period far from an octave gets no octave names", "[sheet]") {
+    // Twelve degrees in a 3/1 period (constructed example): C5 would not be an octave above C4.
+    std::vector<Pitch> d;
+    for (int i = 1; i < 12; ++i) d.push_back(Pitch::from_cents(1901.955 * i / 12));
+    Scale tritave("twelve in 3/1", d, Pitch::from_ratio(Ratio(3)));
+    CHECK_THROWS_WITH(NoteMap(tritave, 0, PitchReference{}, "t"),
+                      "t: error: this names notes by octaves, but the period of this tuning is 3/1 (1901.955 c); "
+                      "an octave, stretched or not, is 1150 to 1250 c");
+    std::vector<Pitch> small;
+    for (int i = 1; i < 12; ++i) small.push_back(Pitch::from_cents(100.0 * i));
+    CHECK_NOTHROW(NoteMap(Scale("wide", small, Pitch::from_cents(1250.0)), 0, PitchReference{}, "w"));
+    CHECK_THROWS(NoteMap(Scale("wider", small, Pitch::from_cents(1250.5)), 0, PitchReference{}, "w"));
+}

@@ -191,7 +191,8 @@ TEST_CASE("export killed mid-way leaves the old file intact", "[export]") {
     // strace stops terzo with SIGKILL on entering a system call of the write: fsync (the new
     // table is in the temporary file, not yet on disk) or rename (about to replace the old
     // file). Either way the old file must be untouched; only the hidden temporary file is
-    // left behind, which a killed process cannot remove.
+    // left behind, which a killed process cannot remove, and the next write into the folder
+    // removes it.
     if (terzo::test::run("strace -o /dev/null true").status != 0) {
         WARN("strace cannot trace here; the interrupted writer is tested in io/atomic_file only");
         return;
@@ -209,7 +210,7 @@ TEST_CASE("export killed mid-way leaves the old file intact", "[export]") {
         CHECK(slurp(d / "keys.csv") == "my old table\n");
         std::size_t temporaries = 0;
         for (const auto& e : fs::directory_iterator(d))
-            if (e.path().filename().string().rfind(".keys.csv.tmp-", 0) == 0) {
+            if (e.path().filename().string().rfind(".tz-", 0) == 0) {
                 ++temporaries;
                 CHECK(slurp(e.path()).rfind("key,", 0) == 0); // the new table got that far
             }
@@ -218,6 +219,8 @@ TEST_CASE("export killed mid-way leaves the old file intact", "[export]") {
         Run ok = run_terzo_in(d, "export seven.scl --table keys.csv --force");
         CHECK(ok.status == 0);
         CHECK(slurp(d / "keys.csv").rfind("key,", 0) == 0);
+        for (const auto& e : fs::directory_iterator(d))
+            CHECK(e.path().filename().string().rfind(".tz-", 0) != 0);
         fs::remove_all(d);
     }
 }

@@ -1,5 +1,8 @@
 #include <catch2/catch.hpp>
 
+#include <filesystem>
+#include <fstream>
+
 #include <nlohmann/json.hpp>
 
 #include "tests/support/run.hpp"
@@ -63,4 +66,22 @@ TEST_CASE("terzo explains its commands and rejects unknown options", "[inspect]"
     CHECK(wrong.err.find("--jsn") != std::string::npos);
     auto none = run_terzo("");
     CHECK(none.status != 0);
+}
+
+TEST_CASE("a description that is not UTF-8 is shown with U+FFFD and a note naming the file", "[inspect-cli]") {
+    auto dir = terzo::test::temp_folder("inspect-bytes");
+    std::ofstream(dir / "l1.scl") << "! x\nbad \xFF \x1B[31m\n 1\n 2/1\n";
+    auto t = terzo::test::run_terzo_in(dir, "inspect l1.scl");
+    REQUIRE(t.status == 0);
+    CHECK(t.out.rfind("bad \xEF\xBF\xBD \xEF\xBF\xBD[31m\n", 0) == 0);
+    CHECK(t.err == "terzo: note: l1.scl: the description holds bytes that are not UTF-8 or are control characters; terminal "
+                   "output shows each as U+FFFD, JSON replaces the bytes that are not UTF-8 (a .scl file keeps them all)\n");
+    auto j = terzo::test::run_terzo_in(dir, "inspect l1.scl --json");
+    REQUIRE(j.status == 0);
+    CHECK(nlohmann::json::parse(j.out)["description"] == "bad \xEF\xBF\xBD \x1B[31m");
+    auto e = terzo::test::run_terzo_in(dir, "export l1.scl --table t.json --scl copy.scl");
+    REQUIRE(e.status == 0);
+    CHECK(nlohmann::json::parse(terzo::test::slurp(dir / "t.json"))["description"] == "bad \xEF\xBF\xBD \x1B[31m");
+    CHECK(terzo::test::slurp(dir / "copy.scl").find("bad \xFF \x1B[31m\n") != std::string::npos); // .scl keeps the bytes
+    std::filesystem::remove_all(dir);
 }

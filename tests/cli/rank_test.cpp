@@ -65,3 +65,40 @@ TEST_CASE("terzo rank reports broken files on stderr, still ranks the rest, and 
     CHECK(by.err.rfind("--by: error: unknown metric \"best\"", 0) == 0);
     std::filesystem::remove_all(dir);
 }
+
+TEST_CASE("terzo rank says so when a folder holds no .scl file", "[rank-cli]") {
+    auto dir = terzo::test::temp_folder("rank-empty");
+    auto r = run_terzo("rank " + dir.string() + " --quiet");
+    CHECK(r.status == 1);
+    CHECK(r.out.empty());
+    CHECK(r.err == dir.string() + ": error: no .scl files in this folder or below it\nterzo rank: 1 could not be ranked, 0 ranked\n");
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("terzo rank keeps the whole ranking when a description is not UTF-8, and shows no escape", "[rank-cli]") {
+    auto dir = terzo::test::temp_folder("rank-bytes");
+    save_text(dir / "l1.scl", "! l1.scl\nbad \xFF \x1B[2J\n 1\n 2/1\n");
+    save_text(dir / "just.scl", just12);
+    auto j = run_terzo("rank " + dir.string() + " --by fit --json --quiet");
+    REQUIRE(j.status == 0);
+    auto doc = nlohmann::json::parse(j.out);
+    REQUIRE(doc["ranked"].size() == 2);
+    CHECK(j.err.find("terzo rank: note: 1 description holds bytes that are not UTF-8 or are control characters (the first in " +
+                     (dir / "l1.scl").string() + ")") == 0);
+    auto t = run_terzo("rank " + dir.string() + " --by fit --quiet");
+    REQUIRE(t.status == 0);
+    CHECK(t.out.find('\x1B') == std::string::npos);
+    CHECK(t.out.find("bad \xEF\xBF\xBD \xEF\xBF\xBD[2J") != std::string::npos);
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("terzo rank --list-skipped names the file of a tuning the fit cannot be computed for", "[rank-cli]") {
+    auto dir = terzo::test::temp_folder("rank-fit-skip");
+    // 4096 degrees: every dyad of one period is far more than the resultants' tone limit.
+    auto scl = terzo::test::run_terzo_in(dir, "export 'equal 4096' --scl big.scl");
+    REQUIRE(scl.status == 0);
+    auto r = run_terzo("rank " + dir.string() + " --by fit --list-skipped --quiet");
+    CHECK(r.status == 0);
+    CHECK(r.err.rfind((dir / "big.scl").string() + ": error: the fit is not computed: this request could compute ", 0) == 0);
+    std::filesystem::remove_all(dir);
+}

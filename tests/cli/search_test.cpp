@@ -1,5 +1,8 @@
 #include <catch2/catch.hpp>
 
+#include <filesystem>
+#include <fstream>
+
 #include <nlohmann/json.hpp>
 
 #include "core/tuning/scl.hpp"
@@ -77,4 +80,68 @@ TEST_CASE("Ctrl-C stops a long search, which prints the best found so far and ex
     CHECK(r.out.find("   1  ") != std::string::npos);
     CHECK(r.err.find("search circulating: ") != std::string::npos);
     CHECK(r.err.find("terzo search: interrupted; the results above are the best found before stopping\n") != std::string::npos);
+}
+
+TEST_CASE("terzo search equal prints results beyond the scale limit and refuses only their .scl files", "[search-cli]") {
+    // Used to abort: a Scale was built for every result, even without --write-scl.
+    auto big = run_terzo("search equal --max-steps 100000 --top 3");
+    REQUIRE(big.status == 0);
+    CHECK(big.err.empty());
+    CHECK(big.out.find("equal divisions of 2/1 into 1 to 100000 steps\n") != std::string::npos);
+    auto many = run_terzo("search equal --max-steps 5000 --top 1000 --target 3/2 --json");
+    REQUIRE(many.status == 0);
+    CHECK(nlohmann::json::parse(many.out)["results"].size() == 1000);
+    auto dir = terzo::test::temp_folder("search-big-scl");
+    auto refused = run_terzo("search equal --max-steps 5000 --top 1000 --target 3/2 --write-scl " + (dir / "out").string());
+    CHECK(refused.status == 1);
+    CHECK(refused.out.empty());
+    CHECK(refused.err.find("--write-scl: error: result ") == 0);
+    CHECK(refused.err.find("steps, more than 4096, the largest scale terzo writes") != std::string::npos);
+    CHECK_FALSE(std::filesystem::exists(dir / "out"));
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("terzo search --write-scl records the search in each file and replaces a set whole", "[search-cli]") {
+    auto dir = terzo::test::temp_folder("search-set");
+    auto r = run_terzo("search equal --max-steps 24 --top 2 --write-scl " + (dir / "set").string());
+    REQUIRE(r.status == 0);
+    const std::string first = terzo::test::slurp(dir / "set" / "equal-01.scl");
+    CHECK(first.rfind("! equal-01.scl\n! Made by: terzo search equal --statistic rms --period 2/1 --max-steps 24 --top 2\n"
+                      "! equal divisions of 2/1 into 1 to 24 steps\n! cost: rms of the errors of 3/2, 5/4, 6/5\n"
+                      "! Rank 1 of 2.\n!\n", 0) == 0);
+    // A killed run's staging folder (its process has ended) is removed by the next run.
+    const std::string stale = ".tz-" + std::to_string(std::stoi(terzo::test::output_of("sh -c 'echo $$'"))) + "-AbCdEf";
+    std::filesystem::create_directory(dir / "set" / stale);
+    std::ofstream(dir / "set" / stale / "equal-01.scl") << "half";
+    auto again = run_terzo("search equal --max-steps 24 --top 2 --target 3/2 --force --write-scl " + (dir / "set").string());
+    REQUIRE(again.status == 0);
+    std::size_t n = 0;
+    for (const auto& e : std::filesystem::directory_iterator(dir / "set")) {
+        CHECK(e.path().filename().string().rfind(".tz-", 0) != 0);
+        ++n;
+    }
+    CHECK(n == 2);
+    CHECK(terzo::test::slurp(dir / "set" / "equal-02.scl").find("--target 3/2") != std::string::npos);
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("terzo search refuses negative counts by name", "[search-cli]") {
+    auto top = run_terzo("search equal --top -1");
+    CHECK(top.status == 1);
+    CHECK(top.err == "--top: error: result count -1 is outside 1..1000\n");
+    auto threads = run_terzo("search circulating --threads -5 --quiet");
+    CHECK(threads.status == 1);
+    CHECK(threads.err == "--threads: error: thread count -5 is outside 1..64\n");
+}
+
+TEST_CASE("terzo search stops at its time limit with the best found so far", "[search-cli]") {
+    // Eight fractions: 2.6*10^9 candidates, far more than 1.2 s of work.
+    auto r = run_terzo("search circulating --fractions 0,1/12,1/6,1/4,1/3,-1/12,-1/6,-1/4 "
+                       "--top 2 --time-limit 0.02 --threads 1 --quiet --part fifth:rms --no-pruning");
+    CHECK(r.status == 3);
+    CHECK(r.out.find("; the best found so far:\n") != std::string::npos);
+    CHECK(r.err == "terzo search: stopped at the time limit of 0.02 min (--time-limit); the results above are the best found by then\n");
+    auto bad = run_terzo("search circulating --time-limit -1 --quiet");
+    CHECK(bad.status == 1);
+    CHECK(bad.err == "--time-limit: error: time limit -1 is outside 0..100000 minutes\n");
 }

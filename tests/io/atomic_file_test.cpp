@@ -1,7 +1,10 @@
 #include <catch2/catch.hpp>
 
 #include <filesystem>
+#include <fstream>
 #include <stdexcept>
+#include <sys/wait.h>
+#include <unistd.h>
 
 #include "core/error.hpp"
 #include "core/io/atomic_file.hpp"
@@ -129,5 +132,117 @@ TEST_CASE("a writer killed midway leaves the old file intact", "[atomic_file]") 
     std::string now = test::slurp(target);
     CHECK((now == "precious\n" || now.size() == (200u << 20)));
     if (WIFSIGNALED(status)) CHECK(now == "precious\n");
+    fs::remove_all(dir);
+}
+
+namespace {
+// The id of a process that has ended: a stale temporary carries such an id.
+pid_t ended_process() {
+    pid_t child = ::fork();
+    if (child == 0) ::_exit(0);
+    int status = 0;
+    ::waitpid(child, &status, 0);
+    return child;
+}
+} // namespace
+
+TEST_CASE("a target name of 255 bytes can be written: the temporary name is short", "[atomic_file]") {
+    fs::path dir = test::temp_folder("atomic-long");
+    for (std::size_t n : {244u, 250u, 255u}) {
+        fs::path target = dir / std::string(n, 'a');
+        write_file_atomically(target, [](std::ostream& o) { o << "long\n"; });
+        CHECK(test::slurp(target) == "long\n");
+    }
+    CHECK(files_in(dir) == 3);
+    fs::remove_all(dir);
+}
+
+TEST_CASE("temporaries left by a killed writer are removed by the next write, others are kept", "[atomic_file]") {
+    fs::path dir = test::temp_folder("atomic-stale");
+    const std::string dead = ".tz-" + std::to_string(ended_process()) + "-";
+    std::ofstream(dir / (dead + "Ab3xYz")) << "half";
+    fs::create_directory(dir / (dead + "Folder"));
+    std::ofstream(dir / (dead + "Folder") / "rank-01.scl") << "half";
+    // A running process (this one's parent) and names that only look alike stay.
+    const std::string alive = ".tz-" + std::to_string(::getppid()) + "-Ab3xYz";
+    std::ofstream(dir / alive) << "in use";
+    std::ofstream(dir / ".tz-notapid") << "mine";
+    write_file_atomically(dir / "out.txt", [](std::ostream& o) { o << "new\n"; });
+    CHECK_FALSE(fs::exists(dir / (dead + "Ab3xYz")));
+    CHECK_FALSE(fs::exists(dir / (dead + "Folder")));
+    CHECK(fs::exists(dir / alive));
+    CHECK(fs::exists(dir / ".tz-notapid"));
+    CHECK(files_in(dir) == 3);
+    fs::remove_all(dir);
+}
+
+TEST_CASE("a symbolic link is written through: the file it points to changes, the link stays", "[atomic_file]") {
+    fs::path dir = test::temp_folder("atomic-link");
+    std::ofstream(dir / "real.txt") << "old\n";
+    fs::create_symlink("real.txt", dir / "link.txt");
+    CHECK_THROWS_WITH(write_file_atomically(dir / "link.txt", [](std::ostream& o) { o << "new\n"; }),
+                      (dir / "link.txt").string() + ": error: already exists and was not changed (allow overwriting to replace it)");
+    write_file_atomically(dir / "link.txt", [](std::ostream& o) { o << "new\n"; }, Overwrite::allow);
+    CHECK(fs::is_symlink(dir / "link.txt"));
+    CHECK(test::slurp(dir / "real.txt") == "new\n");
+    // A dangling link is an existing name: refused without overwriting, and with it the file
+    // it names is created.
+    fs::create_symlink("missing.txt", dir / "dangling.txt");
+    CHECK_THROWS_WITH(write_file_atomically(dir / "dangling.txt", [](std::ostream& o) { o << "x\n"; }),
+                      Catch::Contains("already exists and was not changed"));
+    write_file_atomically(dir / "dangling.txt", [](std::ostream& o) { o << "x\n"; }, Overwrite::allow);
+    CHECK(fs::is_symlink(dir / "dangling.txt"));
+    CHECK(test::slurp(dir / "missing.txt") == "x\n");
+    fs::remove_all(dir);
+}
+
+TEST_CASE("a set of files is written all together, into a new folder or an existing one", "[atomic_file]") {
+    fs::path dir = test::temp_folder("atomic-set");
+    const std::vector<FileContent> files{{"a-01.scl", "one\n"}, {"a-02.scl", "two\n"}};
+    auto written = write_file_set(dir / "new" / "deeper", files, Overwrite::refuse, "--write-scl");
+    REQUIRE(written.size() == 2);
+    CHECK(written[1] == dir / "new" / "deeper" / "a-02.scl");
+    CHECK(test::slurp(written[0]) == "one\n");
+    CHECK(files_in(dir / "new" / "deeper") == 2);
+    CHECK(files_in(dir / "new") == 1); // the staging folder became the folder
+    CHECK_THROWS_WITH(write_file_set(dir / "new" / "deeper", files, Overwrite::refuse, "--write-scl"),
+                      Catch::Contains("already exists and was not changed"));
+    const std::vector<FileContent> newer{{"a-01.scl", "ONE\n"}, {"a-02.scl", "TWO\n"}};
+    write_file_set(dir / "new" / "deeper", newer, Overwrite::allow, "--write-scl");
+    CHECK(test::slurp(dir / "new" / "deeper" / "a-02.scl") == "TWO\n");
+    CHECK(files_in(dir / "new" / "deeper") == 2);
+    std::ofstream(dir / "plain") << "x";
+    CHECK_THROWS_WITH(write_file_set(dir / "plain", files, Overwrite::refuse, "--write-scl"),
+                      "--write-scl: error: " + (dir / "plain").string() + " is a file, not a folder (no file was written)");
+    fs::remove_all(dir);
+}
+
+TEST_CASE("a set that does not fit on the disk changes no file of the folder", "[atomic_file]") {
+    fs::path dir = test::temp_folder("atomic-set-full");
+    write_file_set(dir, {{"r-01.scl", "old 1\n"}, {"r-02.scl", "old 2\n"}, {"r-03.scl", "old 3\n"}}, Overwrite::refuse, "--write-scl");
+    pid_t child = ::fork();
+    REQUIRE(child >= 0);
+    if (child == 0) {
+        ::signal(SIGXFSZ, SIG_IGN);
+        rlimit limit{4096, 4096};
+        ::setrlimit(RLIMIT_FSIZE, &limit);
+        try {
+            // The first two fit, the third does not.
+            write_file_set(dir, {{"r-01.scl", "new 1\n"}, {"r-02.scl", "new 2\n"}, {"r-03.scl", std::string(1 << 20, 'x')}},
+                           Overwrite::allow, "--write-scl");
+        } catch (const InputError& e) {
+            bool named = std::string(e.what()).find("r-03.scl: error: cannot write") != std::string::npos &&
+                         std::string(e.what()).find("no file in the folder was created or changed") != std::string::npos;
+            ::_exit(named ? 3 : 4);
+        }
+        ::_exit(0);
+    }
+    int status = 0;
+    ::waitpid(child, &status, 0);
+    REQUIRE(WIFEXITED(status));
+    CHECK(WEXITSTATUS(status) == 3);
+    CHECK(test::slurp(dir / "r-01.scl") == "old 1\n");
+    CHECK(test::slurp(dir / "r-02.scl") == "old 2\n");
+    CHECK(files_in(dir) == 3); // no staging folder left
     fs::remove_all(dir);
 }

@@ -190,7 +190,7 @@ TEST_CASE("malformed session files are rejected with one clear message", "[sessi
     }
     SECTION("unreadable paths") {
         REQUIRE_THROWS_WITH(load_session_file("/nonexistent/s.json"),
-                            "/nonexistent/s.json: error: cannot open the session file for reading");
+                            "/nonexistent/s.json: error: no such file");
         REQUIRE_THROWS_WITH(load_session_file("/tmp"),
                             "/tmp: error: is a folder, not a session file");
     }
@@ -216,4 +216,37 @@ TEST_CASE("a number too large for a double is rejected, not thrown through", "[s
     std::istringstream in(R"({"format": "terzo-session", "version": 1e999})");
     CHECK_THROWS_WITH(read_session(in, "s.json"),
                       "s.json: error: not valid JSON: the number \"1e999\" is too large");
+}
+
+TEST_CASE("a description that is not UTF-8 is saved with U+FFFD instead of failing", "[session]") {
+    // It used to throw nlohmann's type_error out of write_session, which ended the window.
+    std::istringstream in("! l1.scl\nbad \xFF\n 1\n 2/1\n");
+    Session s;
+    s.tunings.push_back({"l1.\xFEscl", read_scl(in, "l1.scl")});
+    const std::string text = text_of(s);
+    Session back = parse(text);
+    CHECK(back.tunings[0].scale.description() == "bad \xEF\xBF\xBD");
+    CHECK(back.tunings[0].source == "l1.\xEF\xBF\xBDscl");
+}
+
+TEST_CASE("an unreadable session is moved aside without replacing an earlier one", "[session]") {
+    auto dir = std::filesystem::temp_directory_path() / "terzo_session_unreadable";
+    std::filesystem::remove_all(dir);
+    std::filesystem::create_directories(dir);
+    auto path = dir / "session.json";
+    std::ofstream(path) << "first";
+    CHECK(keep_unreadable_session(path) == dir / "session.json.unreadable");
+    std::ofstream(path) << "second";
+    CHECK(keep_unreadable_session(path) == dir / "session.json.unreadable-2");
+    CHECK_FALSE(std::filesystem::exists(path));
+    std::ifstream first(dir / "session.json.unreadable");
+    std::string word;
+    first >> word;
+    CHECK(word == "first");
+    std::filesystem::remove_all(dir);
+}
+
+TEST_CASE("a session file must be a regular file", "[session]") {
+    CHECK_THROWS_WITH(load_session_file("/dev/zero"),
+                      "/dev/zero: error: is not a regular file (a pipe, device or socket); terzo reads a session file only from a file");
 }

@@ -155,3 +155,15 @@ TEST_CASE("keys keep their keyboard names only in 12-note tunings", "[key_map]")
     KeyMap seven(test::scl_text(demo_scl), 60, KeyReference{60, 264.0});
     CHECK(key_note_name(seven, 60).empty());
 }
+
+TEST_CASE("a period too large for 128 keys is refused before any frequency is printed", "[key_map]") {
+    // One degree and a period of 10,000,000 cents: key 0 is 60 periods below the root,
+    // 2^(-500000) of its frequency, which no double holds.
+    Scale huge("huge", {}, Pitch::from_cents(10000000.0));
+    KeyMap map(huge, 60, KeyReference{60, 261.6255653});
+    CHECK_THROWS_WITH(map.check_frequencies("huge.scl"),
+                      "huge.scl: error: key 0 would sound at 0 Hz, outside the numbers terzo computes with; the period "
+                      "(10000000.000 c) is too large for 128 keys");
+    KeyMap fine(test::equal_division(12), 60, KeyReference{69, 440.0});
+    CHECK_NOTHROW(fine.check_frequencies("12-TET"));
+}

@@ -5,6 +5,11 @@
 #include <sstream>
 
 #include "core/tuning/scl.hpp"
+#include "tests/support/run.hpp"
+
+#include <filesystem>
+#include <fstream>
+#include <sys/stat.h>
 
 using namespace terzo;
 
@@ -141,13 +146,68 @@ TEST_CASE("malformed .scl input is rejected with the file, line and rule", "[scl
     }
     SECTION("binary data") {
         CHECK_THROWS_WITH(read(std::string("d\n2\n9/8\0\x01\x02\n2/1\n", 13)),
-                          "t.scl:3: error: contains a NUL byte; a .scl file is plain text");
+                          "t.scl:3:4: error: contains a NUL byte; a .scl file is plain text");
     }
+    SECTION("a ratio written with spaces around its slash") {
+        CHECK_THROWS_WITH(read("d\n2\n 3 / 2\n2/1\n"),
+                          "t.scl:3:2: error: a ratio with spaces around its '/' in \"3 / 2\"; write it without spaces, such as 3/2");
+        CHECK_THROWS_WITH(read("d\n2\n3 /2\n2/1\n"), Catch::Contains("a ratio with spaces around its '/'"));
+        // Text after a whole pitch stays a comment, as the format says.
+        CHECK(read("d\n2\n3/2 / a fifth\n2/1\n").degree(1) == Pitch::from_ratio(Ratio(3, 2)));
+        CHECK(read("d\n2\n701.955 /comment\n2/1\n").degree(1).cents() == Approx(701.955));
+    }
+}
+
+TEST_CASE("a NUL byte is reported where it is met, without reading further", "[scl]") {
+    // A stream of NULs without end (as /dev/zero would give) stops at the first byte.
+    struct Zeros : std::streambuf {
+        std::size_t served = 0;
+        int_type underflow() override {
+            static char zeros[4096] = {};
+            served += sizeof zeros;
+            setg(zeros, zeros, zeros + sizeof zeros);
+            return 0;
+        }
+    } zeros;
+    std::istream in(&zeros);
+    CHECK_THROWS_WITH(read_scl(in, "zeros"), "zeros:1:1: error: contains a NUL byte; a .scl file is plain text");
+    CHECK(zeros.served == 4096);
+}
+
+TEST_CASE("a .scl text larger than the limit is refused, and blank lines cost no memory", "[scl]") {
+    // 20 MB of blank lines after a whole scale: refused at the limit, reading line by line.
+    std::string valid = "d\n1\n2/1\n";
+    std::string text = valid + std::string(max_scl_bytes, '\n');
+    std::istringstream in(text);
+    CHECK_THROWS_WITH(read_scl(in, "big.scl"),
+                      "big.scl:" + std::to_string(max_scl_bytes - valid.size() + 4) +
+                          ": error: the file is larger than 16 MiB, the most terzo reads as a .scl file");
+    std::istringstream fits(valid + std::string(1000000, '\n'));
+    CHECK(read_scl(fits, "ok.scl").size() == 1);
+}
+
+TEST_CASE("only a regular file is read, and its size is checked before reading", "[scl]") {
+    CHECK_THROWS_WITH(read_scl_file("/dev/zero"),
+                      "/dev/zero: error: is not a regular file (a pipe, device or socket); terzo reads a .scl file only from a file");
+    auto dir = terzo::test::temp_folder("scl-input");
+    REQUIRE(::mkfifo((dir / "pipe.scl").c_str(), 0600) == 0);
+    CHECK_THROWS_WITH(read_scl_file(dir / "pipe.scl"),
+                      (dir / "pipe.scl").string() +
+                          ": error: is not a regular file (a pipe, device or socket); terzo reads a .scl file only from a file");
+    {
+        std::ofstream big(dir / "big.scl");
+        big.seekp(static_cast<std::streamoff>(max_scl_bytes)); // a sparse file one byte over
+        big.put('\n');
+    }
+    CHECK_THROWS_WITH(read_scl_file(dir / "big.scl"),
+                      (dir / "big.scl").string() + ": error: is " + std::to_string(max_scl_bytes + 1) +
+                          " bytes, larger than 16 MiB, the most terzo reads as a .scl file");
+    std::filesystem::remove_all(dir);
 }
 
 TEST_CASE("a missing file is reported by name", "[scl]") {
     CHECK_THROWS_WITH(read_scl_file("/nonexistent/x.scl"),
-                      "/nonexistent/x.scl: error: cannot open the file for reading");
+                      "/nonexistent/x.scl: error: no such file");
     CHECK_THROWS_WITH(read_scl_file("/tmp"), "/tmp: error: is a folder, not a .scl file");
 }
 
