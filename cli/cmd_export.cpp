@@ -112,6 +112,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     const Scale scale = load_tuning(o.tuning);
     warn_degree_order(o.tuning, scale, spec.keep_file_order, std::cerr);
     const KeyMap map = make_key_map(scale, spec, key_map_source(o.keymap));
+    warn_key_order(map, std::cerr);
     const std::string name_text = o.name.empty() ? mts_name_from_description(scale.description()) : o.name;
     const auto name = mts_name(name_text, {"--name", 0, 0});
     const MtsAddress to{device, program, bank};

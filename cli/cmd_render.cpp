@@ -171,6 +171,7 @@ void add_render(CLI::App& app) {
         if (spec) {
             warn_degree_order(o->tuning, scale, spec->keep_file_order, std::cerr);
             const KeyMap map = make_key_map(scale, *spec, key_map_source(o->keymap));
+            warn_key_order(map, std::cerr);
             for (std::size_t i = 0; i < given.size(); ++i) {
                 const auto step = map.step_of(given[i]);
                 if (!step)

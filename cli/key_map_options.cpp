@@ -105,6 +105,17 @@ void warn_degree_order(const std::string& argument, const Scale& scale, bool kee
         << "\n";
 }
 
+void warn_key_order(const KeyMap& map, std::ostream& err) {
+    const auto key = first_falling_key(map);
+    if (!key) return;
+    int below = *key - 1;
+    while (!map.step_of(below)) --below;
+    err << "key map: warning: key " << *key << " (degree " << map.at(*key).degree << ", "
+        << map.at(*key).hz << " Hz) is not above key " << below << " (degree "
+        << map.at(below).degree << ", " << map.at(below).hz
+        << " Hz); the pattern does not rise with the keys\n";
+}
+
 std::string layout_summary(const KeyMap& map, const KeyMapSpec& spec) {
     const KeyPattern& p = map.pattern();
     return key_layout_name(spec.layout) + ", \"" + pattern_keys_text(p.keys) + "\" (" +

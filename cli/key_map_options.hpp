@@ -36,6 +36,9 @@ SourcePos key_map_source(const KeyMapOptions& o);
 void warn_degree_order(const std::string& argument, const Scale& scale, bool keep_order,
                        std::ostream& err);
 
+/// Writes a warning when some key sounds lower than or level with the sounding key below it.
+void warn_key_order(const KeyMap& map, std::ostream& err);
+
 /// "0 x 1 x 2 3 x 4 x 5 x 6 (12 keys, 7 degrees a repeat)"
 std::string layout_summary(const KeyMap& map, const KeyMapSpec& spec);
 

@@ -294,6 +294,18 @@ KeyMap make_key_map(const Scale& scale, const KeyMapSpec& spec, const SourcePos&
                   std::move(sorted.file_degree));
 }
 
+std::optional<int> first_falling_key(const KeyMap& map) {
+    std::optional<double> before;
+    for (int key = lowest_key; key <= highest_key; ++key) {
+        const auto step = map.step_of(key);
+        if (!step) continue;
+        const double c = map.at(key).midi_note;
+        if (before && !(c > *before)) return key;
+        before = c;
+    }
+    return std::nullopt;
+}
+
 std::string key_note_name(const KeyMap& map, int key) {
     if (map.scale().size() != 12 || !(map.pattern() == every_key_pattern(12))) return "";
     return note_text(note_of_key(key));

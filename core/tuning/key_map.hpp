@@ -153,6 +153,10 @@ class KeyMap {
     double root_hz_;
 };
 
+/// The first sounding key of 0..127 that sounds lower than or level with the sounding key
+/// before it (a pattern that does not rise), or nullopt when the keys rise throughout.
+std::optional<int> first_falling_key(const KeyMap& map);
+
 /// The map a spec lays on a tuning: degrees sorted by pitch unless spec.keep_file_order, the
 /// layout's pattern, the reference (or the default one). Throws InputError at pos when the
 /// layout does not fit the tuning or the reference key is silent.

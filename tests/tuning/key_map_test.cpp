@@ -306,3 +306,16 @@ TEST_CASE("degrees are sorted by pitch unless the file order is kept", "[key_map
     CHECK(kept.at(64).from_root.str() == "1/2");
     CHECK(kept.at(64).hz == 100.0);
 }
+
+TEST_CASE("a pattern that does not rise with the keys is found", "[key_map]") {
+    KeyMapSpec spec;
+    CHECK_FALSE(first_falling_key(make_key_map(test::equal_division(9), spec, {"test", 0, 0})));
+    spec.layout = KeyLayout::pattern;
+    // Degrees 0 2 1: key 62 (degree 1) sounds below key 61 (degree 2).
+    spec.pattern = {{0, 2, 1}, 3};
+    const KeyMap m = make_key_map(test::equal_division(9), spec, {"test", 0, 0});
+    const auto key = first_falling_key(m);
+    REQUIRE(key);
+    CHECK(m.at(*key).degree < m.at(*key - 1).degree);
+    CHECK(*key % 3 == 62 % 3);
+}
