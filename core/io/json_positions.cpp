@@ -115,6 +115,19 @@ class Recorder : public nlohmann::json_sax<Json> {
 
 } // namespace
 
+std::string read_limited(std::istream& in, std::size_t max_bytes, const std::string& source,
+                         const std::string& what) {
+    std::string text;
+    char buf[65536];
+    while (in.read(buf, sizeof buf) || in.gcount() > 0) {
+        text.append(buf, static_cast<std::size_t>(in.gcount()));
+        if (text.size() > max_bytes)
+            fail({source, 0, 0}, "the " + what + " is larger than " +
+                                     std::to_string(max_bytes >> 20) + " MiB");
+    }
+    return text;
+}
+
 std::pair<int, int> line_column(const std::string& text, std::size_t byte) {
     int line = 1, column = 1;
     for (std::size_t i = 0; i < byte && i < text.size(); ++i) {

@@ -4,6 +4,7 @@
 #pragma once
 
 #include <cstddef>
+#include <istream>
 #include <map>
 #include <string>
 
@@ -12,6 +13,11 @@
 #include "core/error.hpp"
 
 namespace terzo {
+
+/// The whole of a stream as text; more than max_bytes throws InputError naming source and
+/// saying "the <what> is larger than N MiB".
+std::string read_limited(std::istream& in, std::size_t max_bytes, const std::string& source,
+                         const std::string& what);
 
 /// Line and column (1-based) of a byte offset into text.
 std::pair<int, int> line_column(const std::string& text, std::size_t byte);

@@ -217,13 +217,7 @@ KeyMapSpec key_map_from_json(const Json& j, const std::string& source, const std
 }
 
 KeyMapSpec read_key_map(std::istream& in, const std::string& source) {
-    std::string text;
-    char buf[65536];
-    while (in.read(buf, sizeof buf) || in.gcount() > 0) {
-        text.append(buf, static_cast<std::size_t>(in.gcount()));
-        if (text.size() > max_key_map_bytes)
-            fail({source, 0, 0}, "the key-map file is larger than 1 MiB");
-    }
+    const std::string text = read_limited(in, max_key_map_bytes, source, "key-map file");
     const Json j = parse_json(text, source);
     const JsonPositions at(text, source);
     return key_map_from_json(j, source, "", &at);

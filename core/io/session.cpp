@@ -174,14 +174,7 @@ void write_session(std::ostream& out, const Session& session) {
 }
 
 Session read_session(std::istream& in, const std::string& source) {
-    std::string text;
-    char buf[65536];
-    while (in.read(buf, sizeof buf) || in.gcount() > 0) {
-        text.append(buf, static_cast<std::size_t>(in.gcount()));
-        if (text.size() > max_session_bytes)
-            fail({source, 0, 0}, "the session file is larger than " +
-                                     std::to_string(max_session_bytes >> 20) + " MiB");
-    }
+    const std::string text = read_limited(in, max_session_bytes, source, "session file");
     const Json j = parse_json(text, source);
 
     Reader r(j, "", source);
