@@ -255,3 +255,20 @@ TEST_CASE("a scale written out of order is sorted for the keyboard, with a warni
     REQUIRE(r.status == 0);
     CHECK(slurp(d / "kept.csv").find("\n61,,1,0,250.000000,") != std::string::npos);
 }
+
+TEST_CASE("render sounds MIDI keys through the key map", "[key_map]") {
+    const fs::path d = folder("render");
+    // Keys 60 64 67 of the pattern "0 x 5 x 10 13 x 18" on 31 equal steps play steps 0 10 18:
+    // 261.626 Hz (key 60 at its 12-TET pitch) times 2^(10/31) and 2^(18/31).
+    const auto r = run_terzo_in(d, "render \"equal 31\" --pattern \"0 x 5 x 10 13 x 18 x 23 x 28\" "
+                                   "--keys 60,64,67 --model none --seconds 0.5 --out triad.wav");
+    INFO(r.err);
+    REQUIRE(r.status == 0);
+    const double root = twelve_tet(60);
+    char expected[200];
+    std::snprintf(expected, sizeof expected,
+                  " 60       0  %.3f\n 64      10  %.3f\n 67      18  %.3f\n", root,
+                  root * std::exp2(10.0 / 31), root * std::exp2(18.0 / 31));
+    CHECK(r.out.find(expected) != std::string::npos);
+    CHECK(fs::file_size(d / "triad.wav") > 1000);
+}
