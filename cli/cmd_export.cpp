@@ -7,10 +7,12 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
+#include "cli/key_map_options.hpp"
 #include "cli/output_file.hpp"
 #include "core/io/atomic_file.hpp"
 #include "core/format.hpp"
 #include "core/io/frequency_table.hpp"
+#include "core/io/key_map_file.hpp"
 #include "core/io/mts.hpp"
 #include "core/tuning/scl.hpp"
 #include "core/io/smf.hpp"
@@ -26,7 +28,9 @@ struct ExportOptions {
     std::string tuning, scl, bulk, note, octave1, octave2, octave1_dump, octave2_dump, smf, table;
     int root_key = 60;
     double ref_hz = 0;
-    bool ref_hz_given = false, bank_given = false;
+    bool ref_hz_given = false, bank_given = false, root_key_given = false;
+    KeyMapOptions keymap;
+    std::string save_key_map;
     std::string pitch, name, channels;
     int device = 0x7F, program = 0, bank = 0;
     bool force = false, non_realtime = false;
@@ -77,7 +81,7 @@ void run_export(const ExportOptions& o, std::ostream& report) {
             fail({"--ref-hz", 0, 0},
                  number_text(o.ref_hz) +
                      " Hz is outside the accepted range (above 0, at most 20000 Hz)");
-        ref = {root_key, o.ref_hz};
+        ref = {root_key, o.ref_hz}; // the key is settled below, once the key map is read
     }
     const ChannelSet channels = o.channels.empty() ? all_channels : parse_channels(o.channels, {"--channels", 0, 0});
     const bool realtime = !o.non_realtime;
@@ -93,15 +97,25 @@ void run_export(const ExportOptions& o, std::ostream& report) {
     }
     const bool any_mts = !o.bulk.empty() || !o.note.empty() || !o.octave1.empty() ||
                          !o.octave2.empty() || !o.octave1_dump.empty() || !o.octave2_dump.empty();
-    if (o.scl.empty() && o.table.empty() && o.smf.empty() && !any_mts)
+    if (o.scl.empty() && o.table.empty() && o.smf.empty() && !any_mts && o.save_key_map.empty())
         fail({"export", 0, 0},
              "no output given; name at least one file with --scl, --mts-bulk, --mts-note, "
-             "--mts-octave1, --mts-octave2, --mts-octave1-dump, --mts-octave2-dump, --smf or "
-             "--table");
+             "--mts-octave1, --mts-octave2, --mts-octave1-dump, --mts-octave2-dump, --smf, "
+             "--table or --save-key-map");
 
+    // The key map: a file and the layout options, with --root-key and the reference on top.
+    // A key map file's root key stands unless --root-key is given; --ref-hz tunes that key.
+    KeyMapSpec spec = key_map_spec(o.keymap, std::nullopt, std::nullopt);
+    if (o.root_key_given || o.keymap.file.empty()) spec.root_key = root_key;
+    if (ref) {
+        if (o.ref_hz_given) ref->key = spec.root_key;
+        spec.reference = ref;
+    }
     const Scale scale = load_tuning(o.tuning);
     note_description(scale, o.tuning);
-    const KeyMap map(scale, root_key, ref ? *ref : default_key_reference(scale.size(), root_key));
+    warn_degree_order(o.tuning, scale, spec.keep_file_order, std::cerr);
+    const KeyMap map = make_key_map(scale, spec, key_map_source(o.keymap));
+    warn_key_order(map, std::cerr);
     const std::string name_text = o.name.empty() ? mts_name_from_description(scale.description()) : o.name;
     const auto name = mts_name(name_text, {"--name", 0, 0});
     const MtsAddress to{device, program, bank};
@@ -213,6 +227,13 @@ void run_export(const ExportOptions& o, std::ostream& report) {
                            ".scl scale file, " + std::to_string(scale.size()) + " degrees"});
     }
 
+    if (!o.save_key_map.empty()) {
+        std::ostringstream out;
+        write_key_map(out, spec);
+        outputs.push_back({"--save-key-map", o.save_key_map, out.str(),
+                           "key map, layout " + key_layout_name(spec.layout)});
+    }
+
     // Every check on the targets before the first write: nothing is written unless all can be.
     for (std::size_t i = 0; i < outputs.size(); ++i) {
         const std::filesystem::path p =
@@ -238,6 +259,11 @@ void run_export(const ExportOptions& o, std::ostream& report) {
         report << "; key " << used.key << " (" << note_text(note_of_key(used.key)) << ") sounds at "
                << fixed(used.hz, 6) << " Hz";
     report << "\n";
+    report << "Layout: " << layout_summary(map, spec) << "\n";
+    if (!keys.silent.empty())
+        report << "Silent keys: " << keys.silent.size()
+               << " of 128, sent as \"no change\" in dumps and left out of single-note "
+                  "changes\n";
     if (!keys.out_of_range.empty() && (any_mts || !o.smf.empty()))
         report << "Keys outside the MIDI Tuning Standard's 8.175799..13289.656616 Hz, sent as "
                   "\"no change\" in dumps and left out of single-note changes: "
@@ -303,7 +329,7 @@ void add_export(CLI::App& app) {
     cmd->add_option("--table", o->table,
                     "Write every key's frequency as CSV or JSON (by the file's extension)")
         ->type_name("FILE.csv|FILE.json");
-    cmd->add_option("--root-key", o->root_key,
+    auto* root_key = cmd->add_option("--root-key", o->root_key,
                     "MIDI key that plays degree 0 (default 60, middle C)")
         ->type_name("KEY");
     auto* ref_hz =
@@ -328,8 +354,13 @@ void add_export(CLI::App& app) {
         ->type_name("LIST");
     cmd->add_flag("--non-realtime", o->non_realtime,
                   "Send sub-IDs 07, 08 and 09 as non-real-time messages");
+    add_key_map_options(cmd, o->keymap);
+    cmd->add_option("--save-key-map", o->save_key_map,
+                    "Write the key map used as a key-map file, for --key-map and the window")
+        ->type_name("FILE.json");
     cmd->add_flag("--force", o->force, "Replace files that already exist");
-    cmd->callback([o, ref_hz, bank] {
+    cmd->callback([o, ref_hz, bank, root_key] {
+        o->root_key_given = root_key->count() > 0;
         o->ref_hz_given = ref_hz->count() > 0;
         o->bank_given = bank->count() > 0;
         std::ostringstream report;

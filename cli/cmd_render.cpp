@@ -2,6 +2,7 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
+#include "cli/key_map_options.hpp"
 #include "cli/output_file.hpp"
 #include "cli/text_output.hpp"
 #include "core/error.hpp"
@@ -16,7 +17,7 @@ namespace terzo::cli {
 namespace {
 
 // "0,4,7" -> {0, 4, 7}: whole numbers (a leading '-' allowed) separated by commas.
-std::vector<int> parse_notes(const std::string& text) {
+std::vector<int> parse_notes(const std::string& text, const char* option = "--notes") {
     std::vector<int> notes;
     std::size_t start = 0;
     while (true) {
@@ -26,9 +27,12 @@ std::vector<int> parse_notes(const std::string& text) {
         const std::size_t digits = item.size() - (!item.empty() && item[0] == '-' ? 1 : 0);
         if (digits == 0 || digits > 6 ||
             item.find_first_not_of("0123456789", item.size() - digits) != std::string::npos)
-            fail({"--notes", 0, 0}, terzo::excerpt(item) +
-                                        " is not a degree number; write whole numbers "
-                                        "separated by commas, such as 0,4,7");
+            fail({option, 0, 0}, terzo::excerpt(item) +
+                                     (std::string(option) == "--keys"
+                                          ? " is not a key number; write MIDI keys separated "
+                                            "by commas, such as 60,64,67"
+                                          : " is not a degree number; write whole numbers "
+                                            "separated by commas, such as 0,4,7"));
         notes.push_back(std::stoi(item));
         if (comma == std::string::npos) break;
         start = comma + 1;
@@ -59,7 +63,9 @@ void add_render(CLI::App& app) {
         "to a WAV file. " +
             std::string(hearing_caution()));
     struct Options {
-        std::string tuning, notes, model = "poly", sample_format = "int16", out;
+        std::string tuning, notes, keys, pitch, model = "poly", sample_format = "int16", out;
+        int root_key = 60;
+        KeyMapOptions keymap;
         std::optional<double> c2, c3;
         RenderSettings s;
         bool force = false;
@@ -68,10 +74,22 @@ void add_render(CLI::App& app) {
     cmd->add_option("TUNING", o->tuning, "A .scl file")->required();
     cmd->add_option("--notes", o->notes,
                     "Degrees to sound together, e.g. 0,4,7 (12 is degree 0 "
-                    "one period up, -1 the top degree one period down)")
-        ->required();
-    cmd->add_option("--ref-hz", o->s.ref_hz, "Frequency of degree 0 in Hz (16..4000)")
-        ->capture_default_str();
+                    "one period up, -1 the top degree one period down)");
+    cmd->add_option("--keys", o->keys,
+                    "Instead of --notes: MIDI keys to sound together through the key map, "
+                    "e.g. 60,64,67")
+        ->type_name("LIST");
+    auto* root_key = cmd->add_option("--root-key", o->root_key,
+                                     "With --keys: the key that plays degree 0 (default 60)")
+                         ->type_name("KEY");
+    cmd->add_option("--pitch", o->pitch,
+                    "With --keys: a named note's frequency, such as A4=415 (instead of --ref-hz)")
+        ->type_name("NOTE=HZ");
+    add_key_map_options(cmd, o->keymap);
+    auto* ref_hz = cmd->add_option("--ref-hz", o->s.ref_hz,
+                                   "Frequency of degree 0 (with --keys: of the root key) in Hz "
+                                   "(16..4000)")
+                       ->capture_default_str();
     cmd->add_option("--seconds", o->s.seconds, "Duration (0.1..60)")->capture_default_str();
     cmd->add_option("--model", o->model, "none | poly | oscillator | predicted")
         ->capture_default_str();
@@ -105,7 +123,7 @@ void add_render(CLI::App& app) {
         ->capture_default_str();
     cmd->add_option("--out", o->out, "The WAV file to write")->required();
     cmd->add_flag("--force", o->force, "Replace the file if it exists");
-    cmd->callback([o] {
+    cmd->callback([o, root_key, ref_hz] {
         RenderSettings s = o->s;
         auto model = parse_model(o->model);
         if (!model)
@@ -120,11 +138,56 @@ void add_render(CLI::App& app) {
         else if (o->sample_format != "int16")
             fail({"--sample-format", 0, 0},
                  terzo::excerpt(o->sample_format) + " is not a sample format; use int16 or float32");
-        const std::vector<int> notes = parse_notes(o->notes);
-        check_render_settings(s, notes.size());
+        if (o->notes.empty() == o->keys.empty())
+            fail({"--notes", 0, 0}, "give either --notes (degrees) or --keys (MIDI keys through "
+                                    "a key map), one of them");
+        const bool by_keys = !o->keys.empty();
+        const std::vector<int> given = by_keys ? parse_notes(o->keys, "--keys") : parse_notes(o->notes);
+        if (!by_keys && (!o->pitch.empty() || root_key->count() > 0 || !o->keymap.file.empty() ||
+                         !o->keymap.layout.empty() || !o->keymap.pattern.empty()))
+            fail({"--notes", 0, 0}, "the key-map options (--root-key, --pitch, --key-map, "
+                                    "--layout, --pattern) choose keys; use them with --keys");
+        if (!o->pitch.empty() && ref_hz->count() > 0)
+            fail({"--pitch", 0, 0}, "give either --ref-hz (the root key's frequency) or --pitch "
+                                    "(a named note's), not both");
+        std::optional<KeyMapSpec> spec;
+        if (by_keys) {
+            for (int k : given)
+                if (k < lowest_key || k > highest_key)
+                    fail({"--keys", 0, 0}, "key " + std::to_string(k) + " is outside 0..127");
+            std::optional<KeyReference> ref;
+            if (!o->pitch.empty())
+                ref = key_reference(parse_pitch_reference(o->pitch, {"--pitch", 0, 0}));
+            spec = key_map_spec(o->keymap,
+                                root_key->count() > 0 ? std::optional<int>(o->root_key) : std::nullopt,
+                                ref);
+            if (root_key->count() > 0 && (o->root_key < lowest_key || o->root_key > highest_key))
+                fail({"--root-key", 0, 0}, std::to_string(o->root_key) + " is outside 0..127");
+            if (ref_hz->count() > 0) spec->reference = KeyReference{spec->root_key, s.ref_hz};
+        }
+        check_render_settings(s, given.size());
         check_output_file(o->out, o->force);
-        const Scale scale = load_tuning(o->tuning);
+        Scale scale = load_tuning(o->tuning);
         note_description(scale, o->tuning);
+        std::vector<int> notes = given;
+        if (spec) {
+            warn_degree_order(o->tuning, scale, spec->keep_file_order, std::cerr);
+            const KeyMap map = make_key_map(scale, *spec, key_map_source(o->keymap));
+            warn_key_order(map, std::cerr);
+            for (std::size_t i = 0; i < given.size(); ++i) {
+                const auto step = map.step_of(given[i]);
+                if (!step)
+                    fail({"--keys", 0, 0}, "key " + std::to_string(given[i]) +
+                                               " is silent in this key map (" +
+                                               layout_summary(map, *spec) + ")");
+                notes[i] = *step;
+            }
+            // The render chain takes degree numbers above degree 0 at a frequency: the map's
+            // (sorted) scale and its root key's frequency give the keys' pitches exactly.
+            scale = map.scale();
+            s.ref_hz = map.root_hz();
+            check_render_settings(s, notes.size());
+        }
         const std::vector<double> samples = render(scale, notes, s);
         const std::vector<double> hz = note_frequencies(scale, notes, s.ref_hz);
 
@@ -133,10 +196,17 @@ void add_render(CLI::App& app) {
             << " Hz, " << sample_format_name(format.sample_format) << ", mono, model "
             << model_details(s) << ", peak " << fixed(s.peak_dbfs, 1) << " dBFS\n\n";
         Table t;
-        t.header = {"note", "Hz"};
-        t.align = {Table::Align::right, Table::Align::right};
-        for (std::size_t i = 0; i < notes.size(); ++i)
-            t.add({std::to_string(notes[i]), fixed(hz[i], 3)});
+        if (by_keys) {
+            t.header = {"key", "degree", "Hz"};
+            t.align = {Table::Align::right, Table::Align::right, Table::Align::right};
+            for (std::size_t i = 0; i < notes.size(); ++i)
+                t.add({std::to_string(given[i]), std::to_string(notes[i]), fixed(hz[i], 3)});
+        } else {
+            t.header = {"note", "Hz"};
+            t.align = {Table::Align::right, Table::Align::right};
+            for (std::size_t i = 0; i < notes.size(); ++i)
+                t.add({std::to_string(notes[i]), fixed(hz[i], 3)});
+        }
         write_text(out, t);
         out << '\n' << hearing_caution() << '\n';
         write_wav(o->out, samples, format, o->force ? Overwrite::allow : Overwrite::refuse);

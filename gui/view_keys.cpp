@@ -24,6 +24,7 @@ void draw_keys_view(App& app) {
             app.error = e.what();
         }
     }
+    draw_key_map_settings(app);
     if (!a.comparison_error.empty()) {
         ImGui::TextColored(ImVec4(1.0f, 0.45f, 0.4f, 1.0f), "%s", a.comparison_error.c_str());
         return;

@@ -20,6 +20,7 @@ void draw_keyboard_strip(App& app); ///< panel_keyboard.cpp: pick notes in any p
 
 void draw_tunings_panel(App& app);   ///< panel_tunings.cpp
 void draw_settings_panel(App& app);  ///< panel_settings.cpp
+void draw_key_map_settings(App& app); ///< panel_key_map.cpp: the key map and its MIDI key strip (keys view)
 void draw_selection_panel(App& app); ///< panel_selection.cpp: the selected notes' resultants
 void draw_listen_panel(App& app);    ///< panel_listen.cpp
 void play_selection(App& app);       ///< panel_listen.cpp: render the selection and play it

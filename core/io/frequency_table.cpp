@@ -21,6 +21,10 @@ Table frequency_table(const KeyMap& map) {
     t.align = {A::right, A::left, A::right, A::right, A::right, A::right, A::left, A::left};
     for (int key = lowest_key; key <= highest_key; ++key) {
         const MappedKey k = map.at(key);
+        if (!k.sounds) {
+            t.add({std::to_string(key), key_note_name(map, key), "x", "", "", "", "", ""});
+            continue;
+        }
         t.add({std::to_string(key), key_note_name(map, key), std::to_string(k.degree),
                std::to_string(k.period_count), fixed(k.hz, 6), signed_fixed(k.cents_from_equal, 6),
                k.from_root.is_exact() ? k.from_root.str() : "", mts_text(k)});
@@ -33,9 +37,17 @@ nlohmann::ordered_json frequency_table_json(const KeyMap& map) {
     json keys = json::array();
     for (int key = lowest_key; key <= highest_key; ++key) {
         const MappedKey k = map.at(key);
+        if (!k.sounds) {
+            const std::string name = key_note_name(map, key);
+            keys.push_back({{"key", key},
+                            {"note", name.empty() ? json(nullptr) : json(name)},
+                            {"sounds", false}});
+            continue;
+        }
         const std::string name = key_note_name(map, key), mts = mts_text(k);
         keys.push_back({{"key", key},
                         {"note", name.empty() ? json(nullptr) : json(name)},
+                        {"sounds", true},
                         {"degree", k.degree},
                         {"period", k.period_count},
                         {"hz", k.hz},
@@ -48,6 +60,8 @@ nlohmann::ordered_json frequency_table_json(const KeyMap& map) {
     return {{"description", map.scale().description()},
             {"size", map.scale().size()},
             {"root_key", map.root_key()},
+            {"pattern", pattern_keys_text(map.pattern().keys)},
+            {"degrees_per_repeat", map.pattern().degrees_per_repeat},
             {"reference",
              {{"key", ref.key}, {"note", note_text(note_of_key(ref.key))}, {"hz", ref.hz}}},
             {"keys", std::move(keys)}};

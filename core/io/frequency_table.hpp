@@ -11,10 +11,11 @@
 namespace terzo {
 
 /// One row per key 0..127: key, note, degree, period, hz (6 decimals), cents_from_12tet
-/// (6 decimals), ratio (exact text or empty), mts (frequency data, empty when out of range).
+/// (6 decimals), ratio (exact text or empty), mts (frequency data, empty when out of range);
+/// a silent key has degree "x" and nothing after it.
 Table frequency_table(const KeyMap& map);
-/// {"description", "size", "root_key", "reference": {"key", "note", "hz"}, "keys": [{"key",
-/// "note" (null), "degree", "period", "hz", "cents_from_12tet", "ratio" (null), "exact",
+/// {"description", "size", "root_key", "pattern", "degrees_per_repeat", "reference": {"key",
+/// "note", "hz"}, "keys": [{"key", "note" (null), "sounds" (a silent key stops here), "degree", "period", "hz", "cents_from_12tet", "ratio" (null), "exact",
 /// "mts" (null)}, ...]} with numbers at full double precision.
 nlohmann::ordered_json frequency_table_json(const KeyMap& map);
 

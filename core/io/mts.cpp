@@ -83,7 +83,13 @@ double midi_note_of_hz(double hz) {
 KeyEncoding encode_keys(const KeyMap& map) {
     KeyEncoding e;
     for (int key = lowest_key; key <= highest_key; ++key) {
-        const double note = map.at(key).midi_note;
+        const MappedKey k = map.at(key);
+        if (!k.sounds) {
+            e.keys[static_cast<std::size_t>(key)] = mts_no_change;
+            e.silent.push_back(key);
+            continue;
+        }
+        const double note = k.midi_note;
         auto f = encode_frequency(note);
         if (!f) {
             e.keys[static_cast<std::size_t>(key)] = mts_no_change;
@@ -112,6 +118,9 @@ OctaveOffsets octave_offsets(const KeyMap& map, const SourcePos& pos) {
         fail(pos, "the scale/octave forms carry 12 notes that repeat every octave; this tuning "
                   "repeats at " +
                       period.str() + ", not 2/1" + use);
+    if (!(map.pattern() == every_key_pattern(12)))
+        fail(pos, "the scale/octave forms carry 12 notes on 12 consecutive keys; this key map "
+                  "lays the tuning as \"" + pattern_keys_text(map.pattern().keys) + "\"" + use);
     OctaveOffsets o{};
     for (int pc = 0; pc < 12; ++pc)
         o[static_cast<std::size_t>(pc)] = 100.0 * (map.at(60 + pc).midi_note - (60 + pc));

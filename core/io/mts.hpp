@@ -47,6 +47,7 @@ double midi_note_of_hz(double hz);
 struct KeyEncoding {
     std::array<MtsFrequency, 128> keys{}; ///< mts_no_change where the key is out of range
     std::vector<int> out_of_range;        ///< keys below 8.18 Hz or above 13289.66 Hz
+    std::vector<int> silent;              ///< keys the key map leaves silent (sent as 7F 7F 7F)
     double max_error_cents = 0;           ///< largest |sent - exact| over the sent keys
 };
 /// Encodes keys 0..127 of a key map.
@@ -54,8 +55,8 @@ KeyEncoding encode_keys(const KeyMap& map);
 
 /// Scale/octave offsets: cents from 12-TET at A4 = 440 Hz for C, C#, ... B.
 using OctaveOffsets = std::array<double, 12>;
-/// The offsets of a 12-note tuning that repeats at 2/1, read from keys 60..71. Any other
-/// tuning throws InputError at pos saying why the scale/octave forms cannot carry it.
+/// The offsets of a 12-note tuning that repeats at 2/1 laid on every key, read from keys
+/// 60..71. Any other tuning or layout throws InputError at pos saying why the scale/octave forms cannot carry it.
 OctaveOffsets octave_offsets(const KeyMap& map, const SourcePos& pos);
 
 /// 1-byte offset: 64 + cents rounded to whole cents, 0..127 (-64 .. +63 c); nullopt outside.

@@ -14,8 +14,9 @@
 #include "core/input_file.hpp"
 #include "core/io/atomic_file.hpp"
 #include "core/format.hpp"
-#include "core/tuning/scl.hpp"
+#include "core/io/key_map_file.hpp"
 #include "core/text.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/note_names.hpp"
 
 namespace terzo {
@@ -27,20 +28,6 @@ using OJson = nlohmann::ordered_json;
 
 constexpr const char* format_name = "terzo-session";
 constexpr int format_version = 1;
-
-// Line and column (1-based) of a byte offset into text.
-std::pair<int, int> line_column(const std::string& text, std::size_t byte) {
-    int line = 1, column = 1;
-    for (std::size_t i = 0; i < byte && i < text.size(); ++i) {
-        if (text[i] == '\n') {
-            ++line;
-            column = 1;
-        } else {
-            ++column;
-        }
-    }
-    return {line, column};
-}
 
 // Checked access to one JSON object, naming keys by their path ("settings.max_order").
 class Reader {
@@ -185,39 +172,14 @@ void write_session(std::ostream& out, const Session& session) {
                {"settings", settings_json(session.settings)},
                {"selection", session.selection},
                {"view", session.view},
-               {"volume", session.volume}};
+               {"volume", session.volume},
+               {"key_map", key_map_json(session.key_map)}};
     out << json_text(j) << '\n';
 }
 
 Session read_session(std::istream& in, const std::string& source) {
-    std::string text;
-    char buf[65536];
-    while (in.read(buf, sizeof buf) || in.gcount() > 0) {
-        text.append(buf, static_cast<std::size_t>(in.gcount()));
-        if (text.size() > max_session_bytes)
-            fail({source, 0, 0}, "the session file is larger than " +
-                                     std::to_string(max_session_bytes >> 20) + " MiB");
-    }
-    Json j;
-    try {
-        j = Json::parse(text);
-    } catch (const Json::parse_error& e) {
-        auto [line, column] = line_column(text, e.byte == 0 ? 0 : e.byte - 1);
-        std::string what = e.what();
-        // nlohmann's text is "[json.exception.parse_error.101] parse error at line 1, column
-        // 2: syntax error while parsing value - invalid literal; last read: 'x'"; keep the part
-        // after the position, which says what was wrong.
-        auto colon = what.find(": ", what.find("column"));
-        std::string detail = colon == std::string::npos ? what : what.substr(colon + 2);
-        fail({source, line, column}, "not valid JSON: " + detail);
-    } catch (const Json::out_of_range& e) {
-        // A number too large for a double ("1e999"): nlohmann reports it as out_of_range, with
-        // no position (found by fuzzing; the exception used to escape).
-        std::string what = e.what();
-        auto quote = what.find("parsing '");
-        std::string number = quote == std::string::npos ? "" : what.substr(quote + 9, what.size() - quote - 10);
-        fail({source, 0, 0}, "not valid JSON: the number " + excerpt(number) + " is too large");
-    }
+    const std::string text = read_limited(in, max_session_bytes, source, "session file");
+    const Json j = parse_json(text, source);
 
     Reader r(j, "", source);
     if (r.get("format") != format_name)
@@ -259,6 +221,8 @@ Session read_session(std::istream& in, const std::string& source) {
     if (std::find(session_views.begin(), session_views.end(), s.view) == session_views.end())
         r.fail_here("\"view\" must be one of lattice, grid, keys, sheet; found \"" + s.view + "\"");
     s.volume = r.number("volume", 0.0, 1.0);
+    if (j.is_object() && j.contains("key_map"))
+        s.key_map = key_map_from_json(r.get("key_map"), source, "key_map");
     r.no_other_keys();
     return s;
 }

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "core/analysis/combination.hpp"
+#include "core/tuning/key_map.hpp"
 #include "core/tuning/scale.hpp"
 
 namespace terzo {
@@ -46,6 +47,9 @@ struct Session {
     std::vector<int> selection;
     std::string view = "lattice"; ///< one of session_views
     double volume = 0.1;         ///< listening volume, 0 to 1
+    /// How MIDI keys play the current tuning (the window's key strip); sessions written
+    /// before key maps existed have none and read as every-key.
+    KeyMapSpec key_map;
 };
 
 inline constexpr std::size_t max_session_tunings = 64;

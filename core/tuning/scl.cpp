@@ -179,6 +179,19 @@ Scale read_scl(std::istream& in, const std::string& source) {
     return Scale(std::move(*description), std::move(pitches), std::move(period));
 }
 
+std::vector<int> scl_pitch_lines(std::istream& in) {
+    std::vector<int> out;
+    std::string text;
+    int number = 0, seen = 0; // seen: non-comment lines so far
+    while (std::getline(in, text)) {
+        ++number;
+        if (number == 1 && text.rfind("\xEF\xBB\xBF", 0) == 0) text.erase(0, 3);
+        if (!text.empty() && text[0] == '!') continue;
+        if (++seen > 2 && !trim(text).empty()) out.push_back(number);
+    }
+    return out;
+}
+
 Scale read_scl_file(const std::filesystem::path& path) {
     std::ifstream in = open_input_file(path, max_scl_bytes, "a .scl file");
     return read_scl(in, path.string());

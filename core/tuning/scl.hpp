@@ -28,6 +28,9 @@ inline constexpr std::uintmax_t max_scl_bytes = 16u << 20;
 Scale read_scl(std::istream& in, const std::string& source);
 /// Reads a .scl file; throws InputError naming the path when it cannot be opened or parsed.
 Scale read_scl_file(const std::filesystem::path& path);
+/// Line numbers of the pitch lines of a .scl text (degree 1 first, the period last), for
+/// messages about a scale that read without error; stops early on a malformed file.
+std::vector<int> scl_pitch_lines(std::istream& in);
 /// Writes a scale as .scl; file_name goes into the conventional first comment line, and each
 /// of `comments` into a comment line after it ("! " + text, line breaks made spaces).
 void write_scl(std::ostream& out, const Scale& scale, const std::string& file_name,

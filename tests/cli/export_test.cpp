@@ -124,7 +124,7 @@ TEST_CASE("export rejects bad options with one message naming the option", "[exp
         {"export meantone.scl",
          "export: error: no output given; name at least one file with --scl, --mts-bulk, "
          "--mts-note, --mts-octave1, --mts-octave2, --mts-octave1-dump, --mts-octave2-dump, "
-         "--smf or --table\n"},
+         "--smf, --table or --save-key-map\n"},
         {"export meantone.scl --table t.txt",
          "--table: error: expected a file name ending in .csv or .json, found \"t.txt\"\n"},
         {"export meantone.scl --mts-bulk a.syx --mts-note ./a.syx",

@@ -250,3 +250,28 @@ TEST_CASE("a session file must be a regular file", "[session]") {
     CHECK_THROWS_WITH(load_session_file("/dev/zero"),
                       "/dev/zero: error: is not a regular file (a pipe, device or socket); terzo reads a session file only from a file");
 }
+
+TEST_CASE("a session keeps its key map, and a session without one reads as every key", "[session]") {
+    Session s = sample();
+    s.key_map.layout = KeyLayout::pattern;
+    s.key_map.root_key = 48;
+    s.key_map.pattern = {{0, silent_key, 1}, 2};
+    s.key_map.reference = KeyReference{48, 130.0};
+    const Session back = parse(text_of(s));
+    CHECK(back.key_map == s.key_map);
+    CHECK(text_of(back) == text_of(s));
+    // A session written before key maps: the same text without the "key_map" member.
+    std::string old = text_of(sample());
+    const auto at = old.find(",\n  \"key_map\"");
+    REQUIRE(at != std::string::npos);
+    old = old.substr(0, at) + "\n}\n";
+    CHECK(parse(old).key_map == KeyMapSpec{});
+    SECTION("a bad key map in a session names its key") {
+        CHECK_THROWS_WITH(parse_edited("\"layout\": \"every-key\"", "\"layout\": \"keys\""),
+                          "s.json: error: \"keys\" is not a layout; use every-key, white-keys, "
+                          "twelve-by-pitch or pattern");
+        CHECK_THROWS_WITH(parse_edited("\"root_key\": 60", "\"root_key\": 600"),
+                          "s.json: error: \"key_map.root_key\" must be a whole number from 0 to "
+                          "127, found 600");
+    }
+}

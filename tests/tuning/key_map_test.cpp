@@ -167,3 +167,167 @@ TEST_CASE("a period too large for 128 keys is refused before any frequency is pr
     KeyMap fine(test::equal_division(12), 60, KeyReference{69, 440.0});
     CHECK_NOTHROW(fine.check_frequencies("12-TET"));
 }
+
+namespace {
+
+// Every key 0..127 of a map as text: "x" for a silent key, else "degree/period"; the tables
+// below are written out by hand from the definitions of the layouts.
+std::string row(const KeyMap& map, int from, int to) {
+    std::string out;
+    for (int key = from; key <= to; ++key) {
+        const MappedKey k = map.at(key);
+        if (!out.empty()) out += ' ';
+        out += k.sounds ? std::to_string(k.degree) + "/" + std::to_string(k.period_count) : "x";
+    }
+    return out;
+}
+
+KeyMap laid(const Scale& s, KeyLayout layout, int root = 60, int keys_per_period = 0) {
+    KeyMapSpec spec;
+    spec.root_key = root;
+    spec.layout = layout;
+    spec.keys_per_period = keys_per_period;
+    return make_key_map(s, spec, {"test", 0, 0});
+}
+
+} // namespace
+
+TEST_CASE("every-key lays one degree on each key, one period per scale size", "[key_map]") {
+    const KeyMap nine = laid(test::equal_division(9), KeyLayout::every_key);
+    CHECK(row(nine, 58, 70) == "7/-1 8/-1 0/0 1/0 2/0 3/0 4/0 5/0 6/0 7/0 8/0 0/1 1/1");
+    SECTION("more keys per period than degrees leaves the keys above the top degree silent") {
+        const KeyMap wide = laid(test::equal_division(9), KeyLayout::every_key, 60, 12);
+        CHECK(row(wide, 57, 73) == "x x x 0/0 1/0 2/0 3/0 4/0 5/0 6/0 7/0 8/0 x x x 0/1 1/1");
+        CHECK(wide.at(72).from_root.str() == "2/1");
+    }
+    SECTION("fewer keys per period than degrees leaves the top degrees out") {
+        const KeyMap narrow = laid(test::equal_division(9), KeyLayout::every_key, 60, 7);
+        CHECK(row(narrow, 59, 68) == "6/-1 0/0 1/0 2/0 3/0 4/0 5/0 6/0 0/1 1/1");
+    }
+}
+
+TEST_CASE("white-keys lays consecutive degrees on the white keys and silences the black", "[key_map]") {
+    // C4 = 60: C D E F G A B are keys 60 62 64 65 67 69 71.
+    const KeyMap nine = laid(test::equal_division(9), KeyLayout::white_keys);
+    CHECK(row(nine, 55, 77) ==
+          "6/-1 x 7/-1 x 8/-1 0/0 x 1/0 x 2/0 3/0 x 4/0 x 5/0 x 6/0 7/0 x 8/0 x 0/1 1/1");
+    CHECK(nine.pattern().keys == std::vector<int>{0, -1, 1, -1, 2, 3, -1, 4, -1, 5, -1, 6});
+    CHECK(nine.pattern().degrees_per_repeat == 7);
+    SECTION("a 7-note scale on the white keys repeats every octave of the keyboard") {
+        const KeyMap seven = laid(test::scl_text(demo_scl), KeyLayout::white_keys);
+        CHECK(seven.at(72).from_root.str() == "2/1");
+        CHECK(seven.at(69).from_root.str() == "5/3");
+        CHECK_FALSE(seven.at(70).sounds);
+    }
+    SECTION("from a white key other than C the pattern starts at that key") {
+        const KeyMap d = laid(test::equal_division(19), KeyLayout::white_keys, 62);
+        CHECK(d.pattern().keys == std::vector<int>{0, -1, 1, 2, -1, 3, -1, 4, -1, 5, 6, -1});
+        CHECK(row(d, 62, 74) == "0/0 x 1/0 2/0 x 3/0 x 4/0 x 5/0 6/0 x 7/0");
+    }
+    SECTION("a black root key is refused") {
+        REQUIRE_THROWS_WITH(laid(test::equal_division(9), KeyLayout::white_keys, 61),
+                            "test: error: the white-keys layout needs a white root key; key 61 "
+                            "(C#4) is black");
+    }
+}
+
+TEST_CASE("twelve-by-pitch puts each degree on the key nearest its pitch", "[key_map]") {
+    SECTION("a just major scale lands on the white keys") {
+        // Cents / 100: 9/8 2.04, 5/4 3.86, 4/3 4.98, 3/2 7.02, 5/3 8.84, 15/8 10.88.
+        const Scale major = test::ratio_scale({{9, 8}, {5, 4}, {4, 3}, {3, 2}, {5, 3}, {15, 8}});
+        const KeyMap m = laid(major, KeyLayout::twelve_by_pitch);
+        CHECK(m.pattern().keys == std::vector<int>{0, -1, 1, -1, 2, 3, -1, 4, -1, 5, -1, 6});
+        CHECK(m.at(69).from_root.str() == "5/3");
+        CHECK(m.at(72).from_root.str() == "2/1");
+    }
+    SECTION("nine equal steps of 133.3 c sit on keys 0 1 3 4 5 7 8 9 11") {
+        const KeyMap m = laid(test::equal_division(9), KeyLayout::twelve_by_pitch);
+        CHECK(row(m, 60, 72) == "0/0 1/0 x 2/0 3/0 4/0 x 5/0 6/0 7/0 x 8/0 0/1");
+    }
+    SECTION("five equal steps of 240 c sit on keys 0 2 5 7 10") {
+        const KeyMap m = laid(test::equal_division(5), KeyLayout::twelve_by_pitch);
+        CHECK(m.pattern().keys == std::vector<int>{0, -1, 1, -1, -1, 2, -1, 3, -1, -1, 4, -1});
+    }
+    SECTION("two degrees near one key are kept apart in their order") {
+        // 21/20 (0.84) and 16/15 (1.12) both want key 1; degree 0 holds key 0, so they get
+        // keys 1 and 2.
+        const KeyMap m = laid(test::ratio_scale({{21, 20}, {16, 15}, {3, 2}, {7, 4}}),
+                              KeyLayout::twelve_by_pitch);
+        CHECK(m.pattern().keys == std::vector<int>{0, 1, 2, -1, -1, -1, -1, 3, -1, -1, 4, -1});
+    }
+    SECTION("a 12-note scale gets every key") {
+        CHECK(laid(test::just12(), KeyLayout::twelve_by_pitch).pattern() == every_key_pattern(12));
+    }
+    SECTION("sizes outside 5 to 12 are refused") {
+        REQUIRE_THROWS_WITH(laid(test::equal_division(19), KeyLayout::twelve_by_pitch),
+                            "test: error: the twelve-by-pitch layout takes tunings of 5 to 12 "
+                            "degrees; this one has 19 (use every-key, white-keys or a pattern of "
+                            "your own)");
+    }
+}
+
+TEST_CASE("a pattern of one's own repeats by its degrees per repeat", "[key_map]") {
+    KeyMapSpec spec;
+    spec.layout = KeyLayout::pattern;
+    spec.pattern = {parse_pattern_keys("0 x 1 2, x 3", {"--pattern", 0, 0}), 0};
+    const Scale s = test::equal_division(31);
+    // Without degrees per repeat the pattern moves up one period (31 degrees) each repeat.
+    KeyMap period = make_key_map(s, spec, {"test", 0, 0});
+    CHECK(row(period, 54, 67) == "0/-1 x 1/-1 2/-1 x 3/-1 0/0 x 1/0 2/0 x 3/0 0/1 x");
+    spec.pattern.degrees_per_repeat = 4;
+    KeyMap walk = make_key_map(s, spec, {"test", 0, 0});
+    CHECK(row(walk, 60, 73) == "0/0 x 1/0 2/0 x 3/0 4/0 x 5/0 6/0 x 7/0 8/0 x");
+    CHECK(pattern_keys_text(walk.pattern().keys) == "0 x 1 2 x 3");
+    SECTION("bad patterns are refused") {
+        CHECK_THROWS_WITH(parse_pattern_keys("0 y 1", {"--pattern", 0, 0}),
+                          "--pattern: error: \"y\" is neither a degree number nor x (silent); "
+                          "write a pattern such as \"0 x 1 x 2 3 x 4 x 5 x 6\"");
+        CHECK_THROWS_WITH(parse_pattern_keys(" , ", {"--pattern", 0, 0}),
+                          "--pattern: error: the pattern is empty; write degree numbers and x, "
+                          "such as \"0 x 1\"");
+        spec.pattern.keys = {1, 2};
+        CHECK_THROWS_WITH(make_key_map(s, spec, {"test", 0, 0}),
+                          "test: error: the pattern's first key is the root key and must play "
+                          "degree 0, found 1");
+    }
+    SECTION("a silent reference key is refused") {
+        spec.reference = KeyReference{61, 440.0};
+        CHECK_THROWS_WITH(make_key_map(s, spec, {"test", 0, 0}),
+                          "test: error: the reference key 61 (C#4) is silent in this key map; "
+                          "give the frequency of a key that plays");
+    }
+}
+
+TEST_CASE("degrees are sorted by pitch unless the file order is kept", "[key_map]") {
+    // Written as 5/4, 9/8, 3/2, 1/2: out of order, and 1/2 below 1/1 (it is 1/1 an octave down).
+    const Scale s = test::scl_text("!\nscrambled\n5\n5/4\n9/8\n3/2\n1/2\n2/1\n");
+    KeyMapSpec spec;
+    spec.reference = KeyReference{60, 200.0};
+    const KeyMap sorted = make_key_map(s, spec, {"test", 0, 0});
+    // Sorted: 1/1 (degree 0), 1/1 (written degree 4, brought up an octave), 9/8, 5/4, 3/2.
+    const char* ratios[] = {"1/1", "1/1", "9/8", "5/4", "3/2", "2/1"};
+    const int written[] = {0, 4, 2, 1, 3, 0};
+    for (int i = 0; i < 6; ++i) {
+        CHECK(sorted.at(60 + i).from_root.str() == ratios[i]);
+        CHECK(sorted.at(60 + i).file_degree == written[i]);
+    }
+    CHECK(sorted.at(63).hz == 250.0);
+    spec.keep_file_order = true;
+    const KeyMap kept = make_key_map(s, spec, {"test", 0, 0});
+    CHECK(kept.at(61).from_root.str() == "5/4");
+    CHECK(kept.at(64).from_root.str() == "1/2");
+    CHECK(kept.at(64).hz == 100.0);
+}
+
+TEST_CASE("a pattern that does not rise with the keys is found", "[key_map]") {
+    KeyMapSpec spec;
+    CHECK_FALSE(first_falling_key(make_key_map(test::equal_division(9), spec, {"test", 0, 0})));
+    spec.layout = KeyLayout::pattern;
+    // Degrees 0 2 1: key 62 (degree 1) sounds below key 61 (degree 2).
+    spec.pattern = {{0, 2, 1}, 3};
+    const KeyMap m = make_key_map(test::equal_division(9), spec, {"test", 0, 0});
+    const auto key = first_falling_key(m);
+    REQUIRE(key);
+    CHECK(m.at(*key).degree < m.at(*key - 1).degree);
+    CHECK(*key % 3 == 62 % 3);
+}
