@@ -108,12 +108,12 @@ void dialog_chosen(App& app, const std::filesystem::path& path) {
         }
         case FileDialog::Purpose::save_session_as:
             if (std::filesystem::exists(path) && !d.replace) fail({path.string(), 0, 0}, "already exists; tick \"replace\" to write over it");
-            app.session_path = path;
+            adopt_session_path(app, path);
             save_now(app);
             break;
         }
     } catch (const InputError& e) {
-        again(e.what());
+        again(shown(e));
     }
 }
 
@@ -220,7 +220,14 @@ void status_bar(App& app, ImVec2 pos, ImVec2 size) {
     begin_pane("##status", pos, size, ImGuiWindowFlags_NoTitleBar | ImGuiWindowFlags_NoScrollbar);
     ImGui::PopStyleVar();
     const Analysis& a = app.analysis;
-    if (!app.error.empty()) {
+    if (!app.notice.empty()) {
+        // Stays for the whole run: this window does not save where the user may think it does.
+        ImGui::TextColored(ImVec4(1.0f, 0.8f, 0.45f, 1.0f), "read-only:");
+        ImGui::SameLine();
+        if (!app.error.empty()) ImGui::TextColored(ImVec4(1.0f, 0.45f, 0.4f, 1.0f), "%s", app.error.c_str());
+        else ImGui::TextUnformatted(app.notice.c_str());
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", app.notice.c_str());
+    } else if (!app.error.empty()) {
         ImGui::TextColored(ImVec4(1.0f, 0.45f, 0.4f, 1.0f), "%s", app.error.c_str());
     } else if (a.keyboard) {
         std::string fit = a.keyboard_fit ? "fit of every keyboard dyad " + fixed(a.keyboard_fit->rms_cents, 2) + " c rms (" +

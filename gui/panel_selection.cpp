@@ -26,6 +26,11 @@ void draw_selection_panel(App& app) {
         ImGui::TextWrapped("Select a second note to see resultants.");
         return;
     }
+    if (!a.selection_error.empty()) {
+        ImGui::PushTextWrapPos(0.0f);
+        ImGui::TextColored(ImVec4(1.0f, 0.45f, 0.4f, 1.0f), "%s", a.selection_error.c_str());
+        ImGui::PopTextWrapPos();
+    }
     if (a.selection_fit)
         ImGui::Text("fit %s c rms over %zu tones, %zu exact", fixed(a.selection_fit->rms_cents, 3).c_str(), a.selection_fit->tones, a.selection_fit->exact);
     if (a.selection_bass && a.selection_bass->found) {

@@ -6,6 +6,7 @@
 
 #include "core/io/format.hpp"
 #include "gui/colours.hpp"
+#include "gui/gl_render.hpp"
 #include "gui/views.hpp"
 
 namespace terzo::gui {
@@ -28,7 +29,7 @@ void draw_grid_view(App& app) {
     if (ImGui::RadioButton("fit (weighted rms)", by_fit)) { s.grid_measure = "fit"; touch(app); }
     ImGui::TextDisabled("rows: lower degree; columns: upper degree (a period up on and left of the diagonal)");
     if (a.grid.empty()) {
-        ImGui::TextWrapped("%s", a.error.empty() ? "The grid is empty." : a.error.c_str());
+        ImGui::TextWrapped("%s", !a.grid_error.empty() ? a.grid_error.c_str() : "The grid is empty.");
         return;
     }
 
@@ -64,7 +65,12 @@ void draw_grid_view(App& app) {
         }
     }
     int hover_cell = -1;
+    bool cut = false; // an OpenGL 2 renderer could not index every cell (gl_render.hpp)
     for (int idx = 0; idx < n * n; ++idx) {
+        if (!room_for(dl, 64)) {
+            cut = true;
+            break;
+        }
         const DyadCell& c = a.grid[static_cast<std::size_t>(idx)];
         ImVec2 q0(g0.x + c.high_degree * cell, g0.y + c.low_degree * cell);
         ImVec2 q1(q0.x + cell - 1, q0.y + cell - 1);
@@ -83,6 +89,7 @@ void draw_grid_view(App& app) {
         if (hovered && m.x >= q0.x && m.x < q1.x + 1 && m.y >= q0.y && m.y < q1.y + 1) hover_cell = idx;
     }
     draw_deviation_legend(dl, ImVec2(p0.x + 14, g0.y + n * cell + 14), tol, false);
+    if (cut) dl->AddText(ImVec2(p0.x + 14, p0.y), IM_COL32(255, 115, 100, 255), "only part of the grid is drawn: this OpenGL is older than 3.2");
     ImGui::Dummy(ImVec2(1, legend_h));
 
     if (hover_cell >= 0) {
