@@ -229,11 +229,18 @@ void refresh(App& app) {
             if (n < notes) chord.push_back(kb.notes()[static_cast<std::size_t>(n)]);
         if (chord.size() >= 2) {
             a.selection_tones = chord_tones(kb, chord, options);
+            // Each tone's lattice place is a search over just ratios: the lattice places the
+            // first max_placed_tones (lowest partials first) and counts the rest.
+            std::size_t placed = 0;
             for (const DyadTones& d : a.selection_tones) {
                 std::vector<LatticePlace> places;
-                for (const Tone& tone : d.tones)
+                for (const Tone& tone : d.tones) {
+                    if (placed == max_placed_tones) break;
+                    ++placed;
                     places.push_back(place_on_lattice(
                         tone.exact_value().value_or(Pitch::from_cents(tone.cents)), lattice_options(s)));
+                }
+                a.tones_not_placed += d.tones.size() - places.size();
                 a.tone_places.push_back(std::move(places));
             }
             a.selection_fit = fit(a.selection_tones);

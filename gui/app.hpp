@@ -29,12 +29,17 @@
 
 namespace terzo::gui {
 
+/// Tones of the selection placed on the lattice, at most (each place is a search over just
+/// ratios, tens of microseconds; the marks would not be told apart beyond this anyway).
+inline constexpr std::size_t max_placed_tones = 5000;
+
 /// What core computed for the current tuning and settings.
 struct Analysis {
     std::optional<Keyboard> keyboard;
     std::vector<LatticePlace> degree_places;   ///< per degree of the scale
     std::vector<DyadTones> selection_tones;    ///< every pair of the selected notes
-    std::vector<std::vector<LatticePlace>> tone_places; ///< per selection_tones[i].tones[j]
+    std::vector<std::vector<LatticePlace>> tone_places; ///< per selection_tones[i].tones[j], the first max_placed_tones
+    std::size_t tones_not_placed = 0;          ///< tones beyond max_placed_tones
     std::optional<Fit> selection_fit;
     std::optional<CommonBass> selection_bass;  ///< for two or more selected notes
     std::string selection_error;               ///< why the selection's tones were refused (a limit)

@@ -247,7 +247,7 @@ void draw_lattice_view(App& app) {
     int unplaced = 0;
     for (std::size_t d = 0; d < a.selection_tones.size(); ++d) {
         const auto& dyad = a.selection_tones[d];
-        for (std::size_t t = 0; t < dyad.tones.size(); ++t) {
+        for (std::size_t t = 0; t < a.tone_places[d].size(); ++t) {
             const LatticePlace& pl = a.tone_places[d][t];
             if (pl.how == LatticeHow::none) ++unplaced;
             else marks[pl.exponents].push_back({&dyad.tones[t], &pl, &dyad});
@@ -313,6 +313,10 @@ void draw_lattice_view(App& app) {
     dl->AddText(ImVec2(kx, ky + ImGui::GetTextLineHeight() * 3), edge_col[2], "\xe2\x86\x97 \xc3\x97" "7/4 (harmonic seventh)");
     if (a.selection_tones.empty())
         dl->AddText(ImVec2(p0.x + 14, p0.y + 18 + lh), IM_COL32(200, 200, 120, 255), "Click two or more degrees (or keys below) to see their resultants.");
+    else if (a.tones_not_placed > 0)
+        dl->AddText(ImVec2(p0.x + 14, p0.y + 18 + lh), IM_COL32(180, 180, 190, 255),
+                    ("the first " + std::to_string(max_placed_tones) + " resultants are placed; " + std::to_string(a.tones_not_placed) +
+                     " more are listed at the right").c_str());
     else if (unplaced > 0)
         dl->AddText(ImVec2(p0.x + 14, p0.y + 18 + lh), IM_COL32(180, 180, 190, 255), (std::to_string(unplaced) + " resultants have no 7-limit place; see the list at the right").c_str());
     dl->PopClipRect();
