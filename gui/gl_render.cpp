@@ -2,6 +2,7 @@
 
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <cstdint>
 
 #include <SFML/OpenGL.hpp>
@@ -44,7 +45,11 @@ void renderer_init() {
     const char* version = reinterpret_cast<const char*>(glGetString(GL_VERSION));
     int major = 0, minor = 0;
     if (version) std::sscanf(version, "%d.%d", &major, &minor);
-    use_gl3 = major * 10 + minor >= 32 && ImGui_ImplOpenGL3_Init("#version 130");
+    // TERZO_OPENGL2=1 chooses the OpenGL 2 renderer anyway (for comparisons, or a driver whose
+    // OpenGL 3 misbehaves).
+    const char* force2 = std::getenv("TERZO_OPENGL2");
+    const bool allow3 = !(force2 && *force2 && std::string(force2) != "0");
+    use_gl3 = allow3 && major * 10 + minor >= 32 && ImGui_ImplOpenGL3_Init("#version 130");
     if (use_gl3 && !renderer_has_large_meshes()) { // the backend judged the version otherwise
         ImGui_ImplOpenGL3_Shutdown();
         use_gl3 = false;

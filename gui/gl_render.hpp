@@ -11,7 +11,8 @@ namespace terzo::gui {
 
 /// Starts ImGui's OpenGL 3 renderer when the context offers OpenGL 3.2 or later (it honours
 /// 32-bit vertex offsets, so a pane may hold any number of vertices although Debian's ImGui
-/// indexes them with 16 bits), else the OpenGL 2 renderer. Call once after the window exists.
+/// indexes them with 16 bits), else (or with TERZO_OPENGL2=1 in the environment) the OpenGL 2
+/// renderer. Call once after the window exists.
 void renderer_init();
 /// True when a draw list may hold more than 65,535 vertices (the OpenGL 3 renderer is in use).
 bool renderer_has_large_meshes();
