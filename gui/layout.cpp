@@ -52,7 +52,9 @@ void open_dialog(App& app, FileDialog::Purpose p) {
     case FileDialog::Purpose::export_scl: app.dialog.show(FileDialog::Mode::save, p, ".scl", cwd, stem + "-copy.scl"); break;
     case FileDialog::Purpose::export_lattice_png: app.dialog.show(FileDialog::Mode::save, p, ".png", cwd, stem + "-lattice.png"); break;
     case FileDialog::Purpose::save_session_as: app.dialog.show(FileDialog::Mode::save, p, ".json", cwd, "session.json"); break;
-    case FileDialog::Purpose::export_sheet_svg: app.dialog.show(FileDialog::Mode::save, p, ".svg", cwd, stem + "-sheet.svg"); break;
+    case FileDialog::Purpose::export_sheet_svg: // the sheet shown may be another tuning's (view_sheet.cpp)
+        app.dialog.show(FileDialog::Mode::save, p, ".svg", cwd, std::filesystem::path(app.analysis.sheet_name).stem().string() + "-sheet.svg");
+        break;
     case FileDialog::Purpose::export_comparison_csv: app.dialog.show(FileDialog::Mode::save, p, ".csv", cwd, "comparison.csv"); break;
     }
 }
