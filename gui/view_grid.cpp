@@ -38,7 +38,7 @@ void draw_grid_view(App& app) {
     const float legend_h = ImGui::GetTextLineHeight() * 3.6f + 10;
     const float label = 34.0f;
     float cell = std::floor(std::min((avail.x - label - 10) / n, (avail.y - label - legend_h - 10) / n));
-    cell = std::clamp(cell, 6.0f, 64.0f);
+    cell = std::clamp(cell, 3.0f, 64.0f); // 128 degrees (the grid's limit) fit in 512 pixels
     ImVec2 p0 = ImGui::GetCursorScreenPos();
     ImVec2 g0(p0.x + label, p0.y + label);
     ImGui::InvisibleButton("grid_canvas", ImVec2(label + cell * n + 4, label + cell * n + 4));
@@ -56,10 +56,12 @@ void draw_grid_view(App& app) {
             sel_high = hi;
         }
     }
+    // Column labels need about 20 px for two digits and 30 for three: every step-th is drawn.
+    int step = 1;
+    while (static_cast<float>(step) * cell < (n > 100 ? 30.0f : 20.0f)) step *= 2;
     for (int i = 0; i < n; ++i) {
         std::string t = std::to_string(i);
-        // Column labels need about 20 px for two digits; thin out when the cells are smaller.
-        if (cell >= 22 || i % (cell >= 11 ? 2 : 4) == 0) {
+        if (i % step == 0) {
             dl->AddText(ImVec2(p0.x + 4, g0.y + i * cell + cell * 0.5f - 7), text, t.c_str());
             dl->AddText(ImVec2(g0.x + i * cell + cell * 0.5f - 4, p0.y + 10), text, t.c_str());
         }
