@@ -48,13 +48,21 @@ bool open_tuning(App& app, const std::string& argument) {
             fail({argument, 0, 0}, "at most " + std::to_string(max_session_tunings) +
                                        " tunings can be open; close one first");
         Scale scale = load_tuning(argument);
+        // A tuning already open is made current instead of opened twice (the first run's demo
+        // session holds the demo scale that ./build.sh run also names).
+        for (std::size_t i = 0; i < app.session.tunings.size(); ++i)
+            if (app.session.tunings[i].scale == scale) {
+                if (static_cast<int>(i) != app.session.current) switch_tuning(app, static_cast<int>(i));
+                app.status = argument + " is open already";
+                return true;
+            }
         app.session.tunings.push_back({argument, std::move(scale)});
         switch_tuning(app, static_cast<int>(app.session.tunings.size()) - 1);
         app.status = "opened " + argument;
         app.error.clear();
         return true;
     } catch (const InputError& e) {
-        app.error = e.what();
+        app.error = shown(e);
         return false;
     }
 }
@@ -105,6 +113,23 @@ void select_notes(App& app, std::vector<int> notes) {
 
 namespace {
 
+// Every dyad of the keyboard, low note below high note, as keyboard_tones orders them, with a
+// check of `cancel` between dyads; nullopt when cancelled.
+std::optional<Fit> cancellable_keyboard_fit(const Keyboard& kb, const ToneOptions& options, const std::atomic<bool>& cancel) {
+    const auto& notes = kb.notes();
+    const std::uint64_t n = notes.size();
+    check_options(options);
+    check_tone_count(n * (n - 1) / 2, options); // the CLI's limit, said the same way
+    std::vector<DyadTones> dyads;
+    dyads.reserve(n * (n - 1) / 2);
+    for (std::size_t i = 0; i < notes.size(); ++i)
+        for (std::size_t j = i + 1; j < notes.size(); ++j) {
+            if (cancel.load(std::memory_order_relaxed)) return std::nullopt;
+            dyads.push_back({notes[i], notes[j], dyad_tones(kb, notes[i], notes[j], options)});
+        }
+    return fit(dyads);
+}
+
 void poll_background(App& app) {
     BackgroundFit& b = app.background;
     if (b.job.valid() && b.job.wait_for(std::chrono::seconds(0)) == std::future_status::ready) {
@@ -118,8 +143,9 @@ void poll_background(App& app) {
     }
     if (!b.job.valid() && b.wanted && app.analysis.keyboard) {
         b.wanted = false;
+        b.cancel = std::make_shared<std::atomic<bool>>(false);
         b.job = std::async(std::launch::async, [kb = *app.analysis.keyboard, options = tone_options(app.session.settings),
-                                                generation = b.generation] {
+                                                generation = b.generation, cancel = b.cancel] {
             // The whole-keyboard fit only uses time the window does not need: at idle
             // priority, drawing (and software OpenGL's threads) go first while a setting is
             // being dragged, and the fit catches up when the user pauses.
@@ -129,9 +155,9 @@ void poll_background(App& app) {
             r.generation = generation;
             auto t0 = std::chrono::steady_clock::now();
             try {
-                r.fit = fit(keyboard_tones(kb, options));
+                r.fit = cancellable_keyboard_fit(kb, options, *cancel);
             } catch (const InputError& e) {
-                r.error = e.what();
+                r.error = shown(e);
             }
             r.ms = std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - t0).count();
             return r;
@@ -145,12 +171,33 @@ bool background_pending(const App& app) {
     return app.background.wanted || app.background.job.valid();
 }
 
+namespace {
+
+// The dyad grid (n*n dyads: the largest part of the analysis) is computed only while its view
+// is shown, once per change.
+void update_grid(App& app) {
+    if (!app.grid_stale || app.session.view != "grid" || !app.analysis.keyboard) return;
+    app.grid_stale = false;
+    Analysis& a = app.analysis;
+    a.grid.clear();
+    a.grid_error.clear();
+    try {
+        a.grid = dyad_grid(*a.keyboard, tone_options(app.session.settings));
+    } catch (const InputError& e) {
+        a.grid_error = shown(e);
+    }
+}
+
+} // namespace
+
 void refresh(App& app) {
     if (!app.stale && !app.benchmark) {
+        update_grid(app);
         poll_background(app);
         return;
     }
     ++app.background.generation;
+    if (app.background.cancel) app.background.cancel->store(true); // its result would be dropped
     app.background.wanted = true;
     app.stale = false;
     Analysis a;
@@ -168,7 +215,7 @@ void refresh(App& app) {
             a.degree_places.push_back(place_on_lattice(p, lattice_options(s)));
     } catch (const InputError& e) {
         a.keyboard.reset();
-        a.error = e.what();
+        a.error = shown(e);
         app.analysis = std::move(a);
         app.background.wanted = false;
         return;
@@ -182,24 +229,27 @@ void refresh(App& app) {
             if (n < notes) chord.push_back(kb.notes()[static_cast<std::size_t>(n)]);
         if (chord.size() >= 2) {
             a.selection_tones = chord_tones(kb, chord, options);
+            // Each tone's lattice place is a search over just ratios: the lattice places the
+            // first max_placed_tones (lowest partials first) and counts the rest.
+            std::size_t placed = 0;
             for (const DyadTones& d : a.selection_tones) {
                 std::vector<LatticePlace> places;
-                for (const Tone& tone : d.tones)
+                for (const Tone& tone : d.tones) {
+                    if (placed == max_placed_tones) break;
+                    ++placed;
                     places.push_back(place_on_lattice(
                         tone.exact_value().value_or(Pitch::from_cents(tone.cents)), lattice_options(s)));
+                }
+                a.tones_not_placed += d.tones.size() - places.size();
                 a.tone_places.push_back(std::move(places));
             }
             a.selection_fit = fit(a.selection_tones);
             a.selection_bass = common_bass(kb, chord);
         }
     } catch (const InputError& e) {
-        a.error = e.what();
+        a.selection_error = shown(e);
     }
-    try {
-        a.grid = dyad_grid(kb, options);
-    } catch (const InputError& e) {
-        if (a.error.empty()) a.error = e.what();
-    }
+    app.grid_stale = true; // computed when the grid view shows (update_grid)
     // The keys and sheet views: 12-note tunings at the pitch reference, degree 0 on C.
     try {
         CompareOptions copt;
@@ -216,20 +266,30 @@ void refresh(App& app) {
             if (st.scale.size() <= max_class_degrees) c.classes = interval_classes(st.scale, 7, st.source);
             a.comparison.push_back(std::move(c));
         }
-        if (t->scale.size() == 12) {
+        // The sheet of the current tuning, or when it has not 12 notes, of the first open
+        // tuning that has (the view says which).
+        const SessionTuning* sheet_of = t->scale.size() == 12 ? t : nullptr;
+        for (std::size_t i = 0; !sheet_of && i < app.session.tunings.size(); ++i)
+            if (app.session.tunings[i].scale.size() == 12) sheet_of = &app.session.tunings[i];
+        if (sheet_of) {
             SheetOptions sopt;
             sopt.reference = copt.reference;
-            a.sheet = make_sheet(t->scale, sopt, t->source);
+            a.sheet = make_sheet(sheet_of->scale, sopt, sheet_of->source);
+            a.sheet_name = tuning_label(sheet_of->source);
+            if (sheet_of != t)
+                a.sheet_note = "The current tuning, " + tuning_label(t->source) + ", has " + std::to_string(t->scale.size()) +
+                               " degrees; the tuner's sheet is for 12-note tunings, so this is the sheet of " + a.sheet_name + ".";
         } else {
             a.sheet_error = "The tuner's sheet is for 12-note tunings; " + tuning_label(t->source) + " has " +
-                            std::to_string(t->scale.size()) + " degrees.";
+                            std::to_string(t->scale.size()) + " degrees. Open one from scales/ (or a recipe such as \"equal 12\").";
         }
     } catch (const InputError& e) {
-        a.comparison_error = e.what();
+        a.comparison_error = shown(e);
     }
     // Until the worker answers, the last keyboard fit stays on screen only if it is still
     // valid; the status bar says it is being computed.
     app.analysis = std::move(a);
+    update_grid(app);
     poll_background(app);
 }
 
@@ -243,11 +303,72 @@ bool save_session(App& app) {
         app.dirty = false;
         return true;
     } catch (const InputError& e) {
-        app.error = e.what();
+        app.error = shown(e);
         app.session_path.clear(); // stop retrying a failing autosave every frame
+        app.session_lock = SessionLock();
         return false;
     }
 }
+
+void start_session(App& app, const std::filesystem::path& path, bool fresh) {
+    app.session_path = path;
+    if (path.empty()) return;
+    app.session_lock = SessionLock(path);
+    const bool read_only = app.session_lock.busy();
+    std::error_code ec;
+    if (!fresh && !std::filesystem::exists(path, ec) && !read_only) {
+        // The first run starts from the demo session, so that every view has something to show.
+        try {
+            app.session = load_session_file(asset("demo-session.json"));
+            app.status = "first run: the demo session (File > Close tuning to clear it)";
+        } catch (const InputError& e) {
+            app.error = shown(e);
+        }
+    } else if (!fresh && std::filesystem::exists(path, ec)) {
+        try {
+            app.session = load_session_file(path);
+            app.status = "restored " + path.string();
+        } catch (const InputError& e) {
+            if (read_only) {
+                app.error = shown(e) + " (started a fresh session)";
+            } else {
+                // Keep the unreadable file for the user and start afresh beside it.
+                const auto kept = keep_unreadable_session(path);
+                app.error = shown(e) + (kept.empty() ? " (could not move it aside" : " (kept as " + kept.string()) +
+                            "; started a fresh session)";
+            }
+        }
+    }
+    if (read_only) {
+        // The other window keeps saving its own work there; two writers would lose one's.
+        app.session_path.clear();
+        app.notice = path.string() + " is open in another terzo window: this window shows it read-only and saves nothing "
+                                     "there (File > Save session as... keeps this window's work in a file of its own)";
+    }
+}
+
+void adopt_session_path(App& app, const std::filesystem::path& path) {
+    if (path == app.session_path) return;
+    SessionLock lock(path);
+    if (lock.busy()) fail({path.string(), 0, 0}, "is open in another terzo window; choose another file");
+    app.session_lock = std::move(lock);
+    app.session_path = path;
+    app.notice.clear();
+}
+
+void stop_background(App& app) {
+    BackgroundFit& b = app.background;
+    if (b.cancel) b.cancel->store(true);
+    if (b.job.valid()) b.job.wait();
+    b.wanted = false;
+}
+
+std::filesystem::path asset(const std::string& name) {
+    const char* env = std::getenv("TERZO_ASSETS");
+    return std::filesystem::path(env && *env ? env : TERZO_ASSETS_DIR) / name;
+}
+
+std::string shown(const InputError& e) { return worded(e, setting_label); }
 
 void autosave(App& app, std::chrono::milliseconds delay) {
     if (app.dirty && std::chrono::steady_clock::now() - app.last_change >= delay) save_session(app);

@@ -3,8 +3,10 @@
 // transient interface state. Views draw it; actions below change it.
 #pragma once
 
+#include <atomic>
 #include <chrono>
 #include <cstdint>
+#include <memory>
 #include <future>
 #include <filesystem>
 #include <optional>
@@ -14,6 +16,8 @@
 #include "core/analysis/chord.hpp"
 #include "core/analysis/compare.hpp"
 #include "core/analysis/sheet.hpp"
+#include "core/error.hpp"
+#include "core/setting_error.hpp"
 #include "core/analysis/dyad_grid.hpp"
 #include "core/analysis/fit.hpp"
 #include "core/analysis/keyboard.hpp"
@@ -21,29 +25,41 @@
 #include "core/report/compare_report.hpp"
 #include "core/io/session.hpp"
 #include "gui/file_dialog.hpp"
+#include "gui/session_lock.hpp"
 
 namespace terzo::gui {
+
+/// Tones of the selection placed on the lattice, at most (each place is a search over just
+/// ratios, tens of microseconds; the marks would not be told apart beyond this anyway).
+inline constexpr std::size_t max_placed_tones = 5000;
 
 /// What core computed for the current tuning and settings.
 struct Analysis {
     std::optional<Keyboard> keyboard;
     std::vector<LatticePlace> degree_places;   ///< per degree of the scale
     std::vector<DyadTones> selection_tones;    ///< every pair of the selected notes
-    std::vector<std::vector<LatticePlace>> tone_places; ///< per selection_tones[i].tones[j]
+    std::vector<std::vector<LatticePlace>> tone_places; ///< per selection_tones[i].tones[j], the first max_placed_tones
+    std::size_t tones_not_placed = 0;          ///< tones beyond max_placed_tones
     std::optional<Fit> selection_fit;
     std::optional<CommonBass> selection_bass;  ///< for two or more selected notes
-    std::vector<DyadCell> grid;                ///< n*n cells of the dyad grid
+    std::string selection_error;               ///< why the selection's tones were refused (a limit)
+    std::vector<DyadCell> grid;                ///< n*n cells of the dyad grid (while its view shows)
+    std::string grid_error;                    ///< why the grid was refused (a limit)
     std::optional<Fit> keyboard_fit;           ///< every dyad of the whole keyboard (in the background)
     std::string keyboard_fit_error;            ///< why that was refused (a limit)
     std::vector<ComparedTuning> comparison;    ///< every open tuning (keys only for 12 notes)
     std::string comparison_error;
-    std::optional<Sheet> sheet;                ///< the current tuning's sheet (12 notes only)
+    std::optional<Sheet> sheet;                ///< the current tuning's sheet, else the first 12-note one's
+    std::string sheet_name;                    ///< whose sheet it is
+    std::string sheet_note;                    ///< why it is not the current tuning's
     std::string sheet_error;
-    std::string error;                         ///< why a part could not be computed
+    std::string error;                         ///< why the keyboard could not be built
 };
 
-/// The whole-keyboard fit (tens of milliseconds for 88 keys at order 5) runs on a worker
-/// thread so the window stays responsive; a result is used only if nothing changed meanwhile.
+/// The whole-keyboard fit (tens of milliseconds for 88 keys at order 5, up to the limit of
+/// max_tones tones) runs on a worker thread so the window stays responsive; a result is used
+/// only if nothing changed meanwhile. The worker checks `cancel` between dyads, so a change of
+/// setting or the end of the program stops it at once.
 struct BackgroundFit {
     struct Result {
         std::uint64_t generation = 0;
@@ -52,6 +68,7 @@ struct BackgroundFit {
         double ms = 0.0;
     };
     std::future<Result> job;
+    std::shared_ptr<std::atomic<bool>> cancel; ///< of the running job
     bool wanted = false;           ///< a request is waiting for the worker to be free
     std::uint64_t generation = 0;  ///< bumped by every recomputation of the analysis
     std::size_t completed = 0;     ///< results received (for --bench-frames)
@@ -75,9 +92,12 @@ struct App {
     std::string recipe_error;
     std::string listen_message;
     std::filesystem::path session_path; ///< where the session autosaves; empty: nowhere
+    SessionLock session_lock;  ///< held while session_path is this window's
+    std::string notice;        ///< shown in the status bar until the window closes (read-only session)
     Analysis analysis;
     BackgroundFit background;
     bool stale = true;       ///< analysis needs recomputing
+    bool grid_stale = true;  ///< the dyad grid needs recomputing when its view shows
     bool dirty = false;      ///< session changed since the last save
     std::chrono::steady_clock::time_point last_change{};
     std::string status;      ///< the last message for the status bar
@@ -116,6 +136,22 @@ void select_notes(App& app, std::vector<int> notes);
 void refresh(App& app);
 /// True while the background fit for the current settings is not in yet.
 bool background_pending(const App& app);
+/// Opens the session file `path` for this window: takes its lock and restores it unless
+/// `fresh` (a first run, with no file yet, starts from the demo session in assets/). When another window holds it, restores it read-only (this window saves nothing
+/// there) and says so in app.notice. An unreadable file is kept beside it and a fresh session
+/// begins. An empty path: no session file.
+void start_session(App& app, const std::filesystem::path& path, bool fresh);
+/// Makes `path` this window's session file (Save session as...); throws InputError when
+/// another window holds it.
+void adopt_session_path(App& app, const std::filesystem::path& path);
+/// A file of the program's assets (TERZO_ASSETS, else the source tree's assets/).
+std::filesystem::path asset(const std::string& name);
+/// Stops the background fit and waits for its worker (which returns within one dyad).
+void stop_background(App& app);
+/// A core message for the window: settings named in the words of the settings panel.
+std::string shown(const InputError& e);
+/// The settings panel's label of a setting, in quotes ("\"order |a|+|b|\"").
+std::string setting_label(Setting setting);
 /// Saves the session now (atomically); errors go to app.error.
 bool save_session(App& app);
 /// Saves when the session changed more than `delay` ago.

@@ -16,6 +16,7 @@ inline constexpr ImU32 pane_colour = IM_COL32(28, 31, 36, 255);
 /// Keys of the keyboard strip: the first degree of each period, and the others.
 inline constexpr ImU32 strip_period_key_colour = IM_COL32(92, 102, 128, 255);
 inline constexpr ImU32 strip_key_colour = IM_COL32(56, 64, 82, 255);
+inline constexpr ImU32 strip_hover_colour = IM_COL32(80, 110, 150, 255);
 inline constexpr ImU32 exact_colour = IM_COL32(120, 230, 255, 255);
 
 /// The deviation scale: proven exact is ice blue; otherwise |deviation| runs green (0) ->

@@ -52,7 +52,9 @@ void open_dialog(App& app, FileDialog::Purpose p) {
     case FileDialog::Purpose::export_scl: app.dialog.show(FileDialog::Mode::save, p, ".scl", cwd, stem + "-copy.scl"); break;
     case FileDialog::Purpose::export_lattice_png: app.dialog.show(FileDialog::Mode::save, p, ".png", cwd, stem + "-lattice.png"); break;
     case FileDialog::Purpose::save_session_as: app.dialog.show(FileDialog::Mode::save, p, ".json", cwd, "session.json"); break;
-    case FileDialog::Purpose::export_sheet_svg: app.dialog.show(FileDialog::Mode::save, p, ".svg", cwd, stem + "-sheet.svg"); break;
+    case FileDialog::Purpose::export_sheet_svg: // the sheet shown may be another tuning's (view_sheet.cpp)
+        app.dialog.show(FileDialog::Mode::save, p, ".svg", cwd, std::filesystem::path(app.analysis.sheet_name).stem().string() + "-sheet.svg");
+        break;
     case FileDialog::Purpose::export_comparison_csv: app.dialog.show(FileDialog::Mode::save, p, ".csv", cwd, "comparison.csv"); break;
     }
 }
@@ -108,12 +110,12 @@ void dialog_chosen(App& app, const std::filesystem::path& path) {
         }
         case FileDialog::Purpose::save_session_as:
             if (std::filesystem::exists(path) && !d.replace) fail({path.string(), 0, 0}, "already exists; tick \"replace\" to write over it");
-            app.session_path = path;
+            adopt_session_path(app, path);
             save_now(app);
             break;
         }
     } catch (const InputError& e) {
-        again(e.what());
+        again(shown(e));
     }
 }
 
@@ -221,7 +223,14 @@ void status_bar(App& app, ImVec2 pos, ImVec2 size) {
     begin_pane("##status", pos, size, ImGuiWindowFlags_NoTitleBar | ImGuiWindowFlags_NoScrollbar);
     ImGui::PopStyleVar();
     const Analysis& a = app.analysis;
-    if (!app.error.empty()) {
+    if (!app.notice.empty()) {
+        // Stays for the whole run: this window does not save where the user may think it does.
+        ImGui::TextColored(ImVec4(1.0f, 0.8f, 0.45f, 1.0f), "read-only:");
+        ImGui::SameLine();
+        if (!app.error.empty()) ImGui::TextColored(ImVec4(1.0f, 0.45f, 0.4f, 1.0f), "%s", app.error.c_str());
+        else ImGui::TextUnformatted(app.notice.c_str());
+        if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s", app.notice.c_str());
+    } else if (!app.error.empty()) {
         ImGui::TextColored(ImVec4(1.0f, 0.45f, 0.4f, 1.0f), "%s", app.error.c_str());
     } else if (a.keyboard) {
         std::string fit = a.keyboard_fit ? "fit of every keyboard dyad " + fixed(a.keyboard_fit->rms_cents, 2) + " c rms (" +

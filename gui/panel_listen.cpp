@@ -43,7 +43,7 @@ void play_selection(App& app) {
         app.listen_message = app.player->play(samples, rs.sample_rate, app.session.volume);
         if (app.listen_message.empty()) app.listen_message = "playing " + std::to_string(app.session.selection.size()) + " note(s)";
     } catch (const InputError& e) {
-        app.listen_message = e.what();
+        app.listen_message = shown(e);
     }
 }
 

@@ -1,6 +1,9 @@
 // The selection panel: the selected notes, their resultants (every pair), where each lands,
 // the selection's fit and its common resultant bass.
+#include <algorithm>
+#include <cmath>
 #include <string>
+#include <vector>
 
 #include "core/format.hpp"
 #include "gui/colours.hpp"
@@ -26,6 +29,11 @@ void draw_selection_panel(App& app) {
         ImGui::TextWrapped("Select a second note to see resultants.");
         return;
     }
+    if (!a.selection_error.empty()) {
+        ImGui::PushTextWrapPos(0.0f);
+        ImGui::TextColored(ImVec4(1.0f, 0.45f, 0.4f, 1.0f), "%s", a.selection_error.c_str());
+        ImGui::PopTextWrapPos();
+    }
     if (a.selection_fit)
         ImGui::Text("fit %s c rms over %zu tones, %zu exact", fixed(a.selection_fit->rms_cents, 3).c_str(), a.selection_fit->tones, a.selection_fit->exact);
     if (a.selection_bass && a.selection_bass->found) {
@@ -41,15 +49,30 @@ void draw_selection_panel(App& app) {
         ImGui::TableSetupColumn("lands on degree");
         ImGui::TableSetupColumn("dev. c", ImGuiTableColumnFlags_WidthFixed, 62);
         ImGui::TableHeadersRow();
+        // One row per dyad and per tone; only the rows in view are drawn (partials and a high
+        // order give hundreds of thousands of tones).
+        std::vector<std::size_t> first_row; // of each dyad
+        std::size_t rows = 0;
         for (const DyadTones& d : a.selection_tones) {
-            ImGui::TableNextRow();
-            ImGui::TableNextColumn();
-            ImGui::TextDisabled("dyad");
-            ImGui::TableNextColumn();
-            ImGui::TextDisabled("%d to %d", d.low.degree, d.high.degree);
-            for (const Tone& t : d.tones) {
+            first_row.push_back(rows);
+            rows += 1 + d.tones.size();
+        }
+        ImGuiListClipper clipper;
+        clipper.Begin(static_cast<int>(rows));
+        while (clipper.Step()) {
+            for (int row = clipper.DisplayStart; row < clipper.DisplayEnd; ++row) {
+                const auto r = static_cast<std::size_t>(row);
+                const std::size_t di = static_cast<std::size_t>(std::upper_bound(first_row.begin(), first_row.end(), r) - first_row.begin()) - 1;
+                const DyadTones& d = a.selection_tones[di];
                 ImGui::TableNextRow();
                 ImGui::TableNextColumn();
+                if (r == first_row[di]) {
+                    ImGui::TextDisabled("dyad");
+                    ImGui::TableNextColumn();
+                    ImGui::TextDisabled("%d to %d", d.low.degree, d.high.degree);
+                    continue;
+                }
+                const Tone& t = d.tones[r - first_row[di] - 1];
                 ImGui::Text("(%d,%d)", t.term.a, t.term.b);
                 if (ImGui::IsItemHovered()) ImGui::SetTooltip("%s%s", t.term.name().c_str(), t.low_partial != 1 || t.high_partial != 1 ? (", partials " + std::to_string(t.low_partial) + " and " + std::to_string(t.high_partial)).c_str() : "");
                 ImGui::TableNextColumn();

@@ -44,7 +44,7 @@ void draw_tunings_panel(App& app) {
             try {
                 app.recipe_preview = build_recipe(app.recipe_text);
             } catch (const InputError& e) {
-                app.recipe_error = e.what();
+                app.recipe_error = shown(e);
             }
         }
     }

@@ -6,6 +6,7 @@
 
 #include "core/format.hpp"
 #include "gui/colours.hpp"
+#include "gui/gl_render.hpp"
 #include "gui/views.hpp"
 
 namespace terzo::gui {
@@ -28,7 +29,7 @@ void draw_grid_view(App& app) {
     if (ImGui::RadioButton("fit (weighted rms)", by_fit)) { s.grid_measure = "fit"; touch(app); }
     ImGui::TextDisabled("rows: lower degree; columns: upper degree (a period up on and left of the diagonal)");
     if (a.grid.empty()) {
-        ImGui::TextWrapped("%s", a.error.empty() ? "The grid is empty." : a.error.c_str());
+        ImGui::TextWrapped("%s", !a.grid_error.empty() ? a.grid_error.c_str() : "The grid is empty.");
         return;
     }
 
@@ -37,7 +38,7 @@ void draw_grid_view(App& app) {
     const float legend_h = ImGui::GetTextLineHeight() * 3.6f + 10;
     const float label = 34.0f;
     float cell = std::floor(std::min((avail.x - label - 10) / n, (avail.y - label - legend_h - 10) / n));
-    cell = std::clamp(cell, 6.0f, 64.0f);
+    cell = std::clamp(cell, 3.0f, 64.0f); // 128 degrees (the grid's limit) fit in 512 pixels
     ImVec2 p0 = ImGui::GetCursorScreenPos();
     ImVec2 g0(p0.x + label, p0.y + label);
     ImGui::InvisibleButton("grid_canvas", ImVec2(label + cell * n + 4, label + cell * n + 4));
@@ -55,16 +56,23 @@ void draw_grid_view(App& app) {
             sel_high = hi;
         }
     }
+    // Column labels need about 20 px for two digits and 30 for three: every step-th is drawn.
+    int step = 1;
+    while (static_cast<float>(step) * cell < (n > 100 ? 30.0f : 20.0f)) step *= 2;
     for (int i = 0; i < n; ++i) {
         std::string t = std::to_string(i);
-        // Column labels need about 20 px for two digits; thin out when the cells are smaller.
-        if (cell >= 22 || i % (cell >= 11 ? 2 : 4) == 0) {
+        if (i % step == 0) {
             dl->AddText(ImVec2(p0.x + 4, g0.y + i * cell + cell * 0.5f - 7), text, t.c_str());
             dl->AddText(ImVec2(g0.x + i * cell + cell * 0.5f - 4, p0.y + 10), text, t.c_str());
         }
     }
     int hover_cell = -1;
+    bool cut = false; // an OpenGL 2 renderer could not index every cell (gl_render.hpp)
     for (int idx = 0; idx < n * n; ++idx) {
+        if (!room_for(dl, 64)) {
+            cut = true;
+            break;
+        }
         const DyadCell& c = a.grid[static_cast<std::size_t>(idx)];
         ImVec2 q0(g0.x + c.high_degree * cell, g0.y + c.low_degree * cell);
         ImVec2 q1(q0.x + cell - 1, q0.y + cell - 1);
@@ -83,6 +91,7 @@ void draw_grid_view(App& app) {
         if (hovered && m.x >= q0.x && m.x < q1.x + 1 && m.y >= q0.y && m.y < q1.y + 1) hover_cell = idx;
     }
     draw_deviation_legend(dl, ImVec2(p0.x + 14, g0.y + n * cell + 14), tol, false);
+    if (cut) dl->AddText(ImVec2(p0.x + 14, p0.y), IM_COL32(255, 115, 100, 255), "only part of the grid is drawn: this OpenGL is older than 3.2");
     ImGui::Dummy(ImVec2(1, legend_h));
 
     if (hover_cell >= 0) {

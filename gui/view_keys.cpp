@@ -21,7 +21,7 @@ void draw_keys_view(App& app) {
             s.pitch_reference = ref;
             touch(app);
         } catch (const InputError& e) {
-            app.error = e.what();
+            app.error = shown(e);
         }
     }
     draw_key_map_settings(app);

@@ -14,6 +14,9 @@ namespace terzo::gui {
 
 namespace {
 
+/// Rows of degrees off the lattice shown along the bottom; more are counted, not drawn.
+constexpr int off_rows_max = 2;
+
 // Screen offset of lattice point (e3, e5, e7) at zoom 1.
 ImVec2 lattice_offset(const std::array<int, 3>& e) {
     // 7 goes steeply up and right, chosen so that no small combination of steps (such as
@@ -108,7 +111,12 @@ void draw_lattice_view(App& app) {
             ImVec2 o = lattice_offset(pl.exponents);
             x0 = std::min(x0, o.x), x1 = std::max(x1, o.x), y0 = std::min(y0, o.y), y1 = std::max(y1, o.y);
         }
-        const float top = 130.0f, bottom = off_row ? 150.0f : 60.0f, side = 60.0f;
+        // Room at the bottom for the rows of degrees off the lattice (at zoom 1, the largest).
+        int off = 0;
+        for (const LatticePlace& pl : places) off += pl.how == LatticeHow::none ? 1 : 0;
+        const int off_per_row = std::max(1, static_cast<int>((size.x - 40) / (2 * 17.0f + 12)));
+        const int off_rows = std::min(off_rows_max, (off + off_per_row - 1) / off_per_row);
+        const float top = 130.0f, bottom = off_row ? 100.0f + static_cast<float>(off_rows) * (2 * 17.0f + 30) : 60.0f, side = 60.0f;
         float zx = (size.x - 2 * side) / std::max(1.0f, x1 - x0), zy = (size.y - top - bottom) / std::max(1.0f, y1 - y0);
         cam.zoom = std::clamp(std::min(zx, zy), 0.3f, 1.0f);
         // Pan so the bounds' centre sits at the centre of the free area.
@@ -137,64 +145,95 @@ void draw_lattice_view(App& app) {
             dl->AddRectFilled(q, ImVec2(q.x + 3.0f, q.y + 3.0f), IM_COL32(70, 75, 90, 255));
         }
 
-    // Edges: one step of 3, 5 or 7 between two placed degrees.
+    // The degrees by lattice point. A big tuning puts many degrees near one just ratio (4096
+    // equal steps put about 140 within 20 c of 3/2): up to stack_max stack downwards as
+    // separate nodes; more become one node that counts them.
+    const int n = static_cast<int>(kb.scale().size());
+    std::map<std::array<int, 3>, std::vector<int>> at_point;
+    std::vector<int> off_lattice;
+    for (int i = 0; i < n; ++i) {
+        const LatticePlace& pl = places[static_cast<std::size_t>(i)];
+        if (pl.how == LatticeHow::none) off_lattice.push_back(i);
+        else at_point[pl.exponents].push_back(i);
+    }
+    const std::size_t stack_max = 3;
+
+    // Edges: one step of 3, 5 or 7 between two occupied points (each pair once: the step up).
     const ImU32 edge_col[3] = {IM_COL32(95, 110, 140, 255), IM_COL32(90, 140, 110, 255), IM_COL32(140, 100, 150, 255)};
-    for (std::size_t i = 0; i < places.size(); ++i) {
-        for (std::size_t j = i + 1; j < places.size(); ++j) {
-            if (places[i].how == LatticeHow::none || places[j].how == LatticeHow::none) continue;
-            int diff = 0, axis = -1;
-            for (int k = 0; k < 3; ++k) {
-                int d = std::abs(places[i].exponents[k] - places[j].exponents[k]);
-                diff += d;
-                if (d) axis = k;
-            }
-            if (diff == 1) dl->AddLine(at(places[i].exponents), at(places[j].exponents), edge_col[axis], 2.0f * std::max(cam.zoom, 0.6f));
+    for (const auto& [e, degrees] : at_point) {
+        for (int k = 0; k < 3; ++k) {
+            std::array<int, 3> up = e;
+            ++up[static_cast<std::size_t>(k)];
+            if (at_point.count(up)) dl->AddLine(at(e), at(up), edge_col[k], 2.0f * std::max(cam.zoom, 0.6f));
         }
     }
 
-    // Degrees: nodes. Several degrees at one point (e.g. two interpretations) stack downwards.
+    // Degrees: nodes.
     const float r = std::max(9.0f, 17.0f * cam.zoom);
-    std::map<std::array<int, 3>, int> stacked;
-    std::vector<int> selected_degrees(kb.scale().size(), 0);
-    const int n = static_cast<int>(kb.scale().size());
+    std::vector<char> selected_degrees(static_cast<std::size_t>(n), 0);
     for (int note : app.session.selection) selected_degrees[static_cast<std::size_t>(note % n)] = 1;
     int hovered_degree = -1;
-    const float off_x = p0.x + 20;
-    int off_count = 0;
+    const std::vector<int>* hovered_group = nullptr; // a node that counts several degrees
     struct Label {
         ImVec2 centre;
         std::string text;
     };
-    std::vector<Label> labels; // drawn last, over the resultant marks
-    for (int i = 0; i < n; ++i) {
+    std::vector<Label> labels; // drawn last, over the resultant marks, where they fit
+    const ImVec2 mouse = io.MousePos;
+    auto under_mouse = [&](ImVec2 c) { return hovered && (mouse.x - c.x) * (mouse.x - c.x) + (mouse.y - c.y) * (mouse.y - c.y) <= r * r; };
+    auto degree_label = [&](int i) {
         const LatticePlace& pl = places[static_cast<std::size_t>(i)];
-        ImVec2 c;
-        if (pl.how == LatticeHow::none) {
-            // The row of degrees off the lattice wraps upwards when it fills the width.
-            const int per_row = std::max(1, static_cast<int>((size.x - 40) / (2 * r + 12)));
-            const int k = off_count++;
-            c = ImVec2(off_x + r + (k % per_row) * (2 * r + 12), p1.y - r - 36 - (k / per_row) * (2 * r + 30));
-        } else {
-            int k = stacked[pl.exponents]++;
-            c = at(pl.exponents);
-            c.y += k * (2 * r + 16);
-        }
-        bool sel = selected_degrees[static_cast<std::size_t>(i)] != 0;
-        dl->AddCircleFilled(c, r, sel ? node_selected_colour : node_colour, 32);
-        if (pl.how == LatticeHow::nearest) dl->AddCircle(c, r + 3, IM_COL32(200, 200, 210, 200), 32, 1.5f);
-        std::string idx = std::to_string(i);
-        ImVec2 ts = ImGui::CalcTextSize(idx.c_str());
-        dl->AddText(ImVec2(c.x - ts.x * 0.5f, c.y - ts.y * 0.5f), IM_COL32(255, 255, 255, 255), idx.c_str());
         const Pitch& p = kb.scale().degree(static_cast<std::size_t>(i));
-        labels.push_back({c, p.is_rational() ? p.str() : (pl.how == LatticeHow::none ? fixed(p.cents(), 0) : "\xe2\x89\x88" + pl.just.str())});
-        ImVec2 m = io.MousePos;
-        if (hovered && (m.x - c.x) * (m.x - c.x) + (m.y - c.y) * (m.y - c.y) <= r * r) hovered_degree = i;
+        return p.is_rational() ? p.str() : (pl.how == LatticeHow::none ? fixed(p.cents(), 0) : "\xe2\x89\x88" + pl.just.str());
+    };
+    auto draw_node = [&](ImVec2 c, int degree, bool nearest) {
+        const bool sel = selected_degrees[static_cast<std::size_t>(degree)] != 0;
+        dl->AddCircleFilled(c, r, sel ? node_selected_colour : node_colour, 32);
+        if (nearest) dl->AddCircle(c, r + 3, IM_COL32(200, 200, 210, 200), 32, 1.5f);
+        const std::string idx = std::to_string(degree);
+        const ImVec2 ts = ImGui::CalcTextSize(idx.c_str());
+        dl->AddText(ImVec2(c.x - ts.x * 0.5f, c.y - ts.y * 0.5f), IM_COL32(255, 255, 255, 255), idx.c_str());
+        labels.push_back({c, degree_label(degree)});
+        if (under_mouse(c)) hovered_degree = degree;
+    };
+    for (const auto& [e, degrees] : at_point) {
+        const ImVec2 c0 = at(e);
+        if (c0.x < p0.x - 3 * r || c0.x > p1.x + 3 * r || c0.y < p0.y - 3 * r || c0.y > p1.y + 3 * r) continue; // out of view
+        if (degrees.size() <= stack_max) {
+            for (std::size_t k = 0; k < degrees.size(); ++k) {
+                const int i = degrees[k];
+                draw_node(ImVec2(c0.x, c0.y + static_cast<float>(k) * (2 * r + 16)), i,
+                          places[static_cast<std::size_t>(i)].how == LatticeHow::nearest);
+            }
+            continue;
+        }
+        // One node for the group: a double ring, the count inside, selected when any of its
+        // degrees is; the label names the just ratio and the degrees' range.
+        bool sel = false;
+        for (int i : degrees) sel = sel || selected_degrees[static_cast<std::size_t>(i)] != 0;
+        dl->AddCircleFilled(c0, r, sel ? node_selected_colour : node_colour, 32);
+        dl->AddCircle(c0, r + 3, IM_COL32(200, 200, 210, 200), 32, 1.5f);
+        dl->AddCircle(c0, r + 6, IM_COL32(200, 200, 210, 140), 32, 1.5f);
+        const std::string count = "\xc3\x97" + std::to_string(degrees.size());
+        const ImVec2 ts = ImGui::CalcTextSize(count.c_str());
+        dl->AddText(ImVec2(c0.x - ts.x * 0.5f, c0.y - ts.y * 0.5f), IM_COL32(255, 255, 255, 255), count.c_str());
+        const LatticePlace& pl = places[static_cast<std::size_t>(degrees.front())];
+        labels.push_back({c0, (pl.how == LatticeHow::exact ? "" : "\xe2\x89\x88") + pl.just.str()});
+        if (under_mouse(c0)) hovered_group = &degrees;
     }
-    if (off_count > 0) {
-        const int per_row = std::max(1, static_cast<int>((size.x - 40) / (2 * r + 12)));
-        const int rows = (off_count + per_row - 1) / per_row;
-        dl->AddText(ImVec2(p0.x + 20, p1.y - 2 * r - 62 - (rows - 1) * (2 * r + 30)), IM_COL32(180, 180, 190, 255),
-                    "off the lattice (no 7-limit ratio within the lattice tolerance):");
+    // The degrees off the lattice: a row along the bottom that wraps upwards, at most
+    // off_rows_max rows; the rest are counted.
+    const int per_row = std::max(1, static_cast<int>((size.x - 40) / (2 * r + 12)));
+    const int off_shown = std::min(static_cast<int>(off_lattice.size()), per_row * off_rows_max);
+    for (int k = 0; k < off_shown; ++k)
+        draw_node(ImVec2(p0.x + 20 + r + (k % per_row) * (2 * r + 12), p1.y - r - 36 - (k / per_row) * (2 * r + 30)), off_lattice[static_cast<std::size_t>(k)], false);
+    if (!off_lattice.empty()) {
+        const int rows = (off_shown + per_row - 1) / per_row;
+        std::string title = "off the lattice (no 7-limit ratio within the lattice tolerance):";
+        if (off_shown < static_cast<int>(off_lattice.size()))
+            title = std::to_string(off_lattice.size()) + " degrees off the lattice (no 7-limit ratio within the lattice tolerance); the first " +
+                    std::to_string(off_shown) + ":";
+        dl->AddText(ImVec2(p0.x + 20, p1.y - 2 * r - 62 - (rows - 1) * (2 * r + 30)), IM_COL32(180, 180, 190, 255), title.c_str());
     }
 
     // Resultant marks: on a ring around their lattice point, coloured by landing deviation.
@@ -208,7 +247,7 @@ void draw_lattice_view(App& app) {
     int unplaced = 0;
     for (std::size_t d = 0; d < a.selection_tones.size(); ++d) {
         const auto& dyad = a.selection_tones[d];
-        for (std::size_t t = 0; t < dyad.tones.size(); ++t) {
+        for (std::size_t t = 0; t < a.tone_places[d].size(); ++t) {
             const LatticePlace& pl = a.tone_places[d][t];
             if (pl.how == LatticeHow::none) ++unplaced;
             else marks[pl.exponents].push_back({&dyad.tones[t], &pl, &dyad});
@@ -246,10 +285,20 @@ void draw_lattice_view(App& app) {
             dl->AddText(ImVec2(c0.x + rr + 8, c0.y - rr - 8), IM_COL32(200, 200, 210, 255), more.c_str());
         }
     }
+    // Labels only where they fit: one that would cover a node or a label already placed is
+    // left out (its node's tooltip still tells).
+    std::vector<ImVec4> placed;
+    for (const Label& l : labels) placed.emplace_back(l.centre.x - r, l.centre.y - r, l.centre.x + r, l.centre.y + r); // the nodes
     for (const Label& l : labels) {
-        ImVec2 ls = ImGui::CalcTextSize(l.text.c_str());
-        ImVec2 q(l.centre.x - ls.x * 0.5f, l.centre.y + r + 13);
-        dl->AddRectFilled(ImVec2(q.x - 3, q.y - 1), ImVec2(q.x + ls.x + 3, q.y + ls.y + 1), IM_COL32(22, 24, 30, 220), 3.0f);
+        const ImVec2 ls = ImGui::CalcTextSize(l.text.c_str());
+        const ImVec2 q(l.centre.x - ls.x * 0.5f, l.centre.y + r + 13);
+        const ImVec4 box(q.x - 3, q.y - 1, q.x + ls.x + 3, q.y + ls.y + 1);
+        if (box.z < p0.x || box.x > p1.x || box.w < p0.y || box.y > p1.y) continue;
+        bool clash = false;
+        for (const ImVec4& b : placed) clash = clash || (box.x < b.z && b.x < box.z && box.y < b.w && b.y < box.w);
+        if (clash) continue;
+        placed.push_back(box);
+        dl->AddRectFilled(ImVec2(box.x, box.y), ImVec2(box.z, box.w), IM_COL32(22, 24, 30, 220), 3.0f);
         dl->AddText(q, IM_COL32(235, 238, 245, 255), l.text.c_str());
     }
 
@@ -264,6 +313,10 @@ void draw_lattice_view(App& app) {
     dl->AddText(ImVec2(kx, ky + ImGui::GetTextLineHeight() * 3), edge_col[2], "\xe2\x86\x97 \xc3\x97" "7/4 (harmonic seventh)");
     if (a.selection_tones.empty())
         dl->AddText(ImVec2(p0.x + 14, p0.y + 18 + lh), IM_COL32(200, 200, 120, 255), "Click two or more degrees (or keys below) to see their resultants.");
+    else if (a.tones_not_placed > 0)
+        dl->AddText(ImVec2(p0.x + 14, p0.y + 18 + lh), IM_COL32(180, 180, 190, 255),
+                    ("the first " + std::to_string(max_placed_tones) + " resultants are placed; " + std::to_string(a.tones_not_placed) +
+                     " more are listed at the right").c_str());
     else if (unplaced > 0)
         dl->AddText(ImVec2(p0.x + 14, p0.y + 18 + lh), IM_COL32(180, 180, 190, 255), (std::to_string(unplaced) + " resultants have no 7-limit place; see the list at the right").c_str());
     dl->PopClipRect();
@@ -280,6 +333,18 @@ void draw_lattice_view(App& app) {
         ImGui::Text("%s Hz", fixed(t.hz, 3).c_str());
         ImGui::Text("lands on %s: %s", note_label(kb, t.landing.degree, t.landing.period).c_str(), t.landing.exact ? "exactly" : (signed_fixed(t.landing.deviation_cents, 3) + " c").c_str());
         ImGui::TextDisabled("%s", place_text(*hovered_place).c_str());
+        ImGui::EndTooltip();
+    } else if (hovered_group) {
+        const std::vector<int>& g = *hovered_group;
+        ImGui::BeginTooltip();
+        double lo = 0, hi = 0;
+        for (int i : g) {
+            lo = std::min(lo, places[static_cast<std::size_t>(i)].deviation_cents);
+            hi = std::max(hi, places[static_cast<std::size_t>(i)].deviation_cents);
+        }
+        ImGui::Text("%zu degrees near %s", g.size(), places[static_cast<std::size_t>(g.front())].just.str().c_str());
+        ImGui::Text("from %s c to %s c from it", signed_fixed(lo, 3).c_str(), signed_fixed(hi, 3).c_str());
+        ImGui::TextDisabled("select single degrees with the keyboard strip below");
         ImGui::EndTooltip();
     } else if (hovered_degree >= 0) {
         const Pitch& p = kb.scale().degree(static_cast<std::size_t>(hovered_degree));

@@ -1,4 +1,5 @@
-// The sheet view: the tuner's sheet of the current 12-note tuning at the pitch reference
+// The sheet view: the tuner's sheet of the current 12-note tuning (else of the first open
+// 12-note tuning, saying so) at the pitch reference
 // (core/analysis/sheet.hpp, tables of core/report/sheet_report.hpp): notes with offsets and beat
 // rates, the tuning order, the circle of fifths, and the advice every sheet carries.
 #include "core/report/sheet_report.hpp"
@@ -20,6 +21,7 @@ void draw_sheet_view(App& app) {
     const Sheet& s = *a.sheet;
     ImGui::BeginChild("sheet_scroll");
     ImGui::PushTextWrapPos(0.0f);
+    if (!a.sheet_note.empty()) ImGui::TextDisabled("%s", a.sheet_note.c_str());
     ImGui::Text("%s at %s (degree 0 on C); change the reference in the Keys view", s.description.c_str(), app.session.settings.pitch_reference.c_str());
     ImGui::TextColored(ImVec4(1.0f, 0.8f, 0.45f, 1.0f), "%s", tuning_advice);
     ImGui::PopTextWrapPos();

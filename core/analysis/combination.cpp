@@ -8,6 +8,7 @@
 #include <utility>
 
 #include "core/analysis/audibility.hpp"
+#include "core/setting_error.hpp"
 
 namespace terzo {
 
@@ -259,10 +260,10 @@ std::optional<Pitch> Tone::exact_value() const {
 
 void check_options(const ToneOptions& options) {
     if (options.order < 2 || options.order > max_order)
-        fail({"--order"}, "order " + std::to_string(options.order) +
+        fail(Setting::order, "order " + std::to_string(options.order) +
                               " is outside the allowed range 2 to " + std::to_string(max_order));
     if (options.partials < 1 || options.partials > max_partials)
-        fail({"--partials"}, "partials " + std::to_string(options.partials) +
+        fail(Setting::partials, "partials " + std::to_string(options.partials) +
                                  " is outside the allowed range 1 to " + std::to_string(max_partials));
 }
 
@@ -276,9 +277,9 @@ std::uint64_t tone_count_bound(std::uint64_t dyads, const ToneOptions& options) 
 void check_tone_count(std::uint64_t dyads, const ToneOptions& options) {
     std::uint64_t bound = tone_count_bound(dyads, options);
     if (bound > max_tones)
-        fail({"--order"}, "this request could compute " + std::to_string(bound) + " tones (" +
-                              std::to_string(dyads) + " dyads), more than the limit of " +
-                              std::to_string(max_tones) + "; lower --order, --span or --partials");
+        fail(Setting::order, "this request could compute " + std::to_string(bound) + " tones (" +
+                                 std::to_string(dyads) + " dyads), more than the limit of " +
+                                 std::to_string(max_tones) + "; lower {order}, {span} or {partials}");
 }
 
 std::vector<Tone> dyad_tones(const Keyboard& keyboard, const Note& low, const Note& high,

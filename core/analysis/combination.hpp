@@ -16,9 +16,9 @@
 
 namespace terzo {
 
-/// Limits (checked by check_options and keyboard_tones; each names its option).
-inline constexpr int max_order = 12;                 ///< --order
-inline constexpr int max_partials = 32;              ///< --partials
+/// Limits (checked by check_options and keyboard_tones; each names its Setting).
+inline constexpr int max_order = 12;                 ///< Setting::order
+inline constexpr int max_partials = 32;              ///< Setting::partials
 inline constexpr std::uint64_t max_tones = 1000000;  ///< tones computed by one request, at most
 
 /// The term a*f_low + b*f_high; a and b are non-zero.
@@ -80,7 +80,7 @@ struct ToneOptions {
     bool exact = true;
 };
 
-/// Throws InputError naming "--order" or "--partials" when an option is out of range.
+/// Throws InputError naming Setting::order or Setting::partials when one is out of range.
 void check_options(const ToneOptions& options);
 
 /// All tones of one dyad (given in either order, the lower note counts as low; a unison
@@ -94,7 +94,7 @@ std::vector<DyadTones> keyboard_tones(const Keyboard& keyboard, const ToneOption
 
 /// An upper bound on the tones computed for `dyads` dyads (used to enforce max_tones).
 std::uint64_t tone_count_bound(std::uint64_t dyads, const ToneOptions& options);
-/// Throws InputError (naming "--order" and the other options to lower) when
+/// Throws InputError (naming Setting::order and the other settings to lower) when
 /// tone_count_bound(dyads, options) exceeds max_tones.
 void check_tone_count(std::uint64_t dyads, const ToneOptions& options);
 

@@ -5,6 +5,7 @@
 #include <string>
 
 #include "core/error.hpp"
+#include "core/setting_error.hpp"
 
 namespace terzo {
 
@@ -15,6 +16,14 @@ std::vector<DyadCell> dyad_grid(const Keyboard& keyboard, const ToneOptions& opt
                                       " degrees; the dyad grid shows at most " +
                                       std::to_string(max_grid_degrees));
     check_options(options);
+    // The same bound as every other request (check_tone_count), said in the grid's terms:
+    // its size is fixed by the tuning, so only the order and the partials can be lowered.
+    const std::uint64_t bound = tone_count_bound(n * n, options);
+    if (bound > max_tones)
+        fail(Setting::order, "the dyad grid of " + std::to_string(n) + " degrees could compute " +
+                                 std::to_string(bound) + " tones (" + std::to_string(n * n) +
+                                 " dyads), more than the limit of " + std::to_string(max_tones) +
+                                 "; lower {order} or {partials}");
     std::vector<DyadCell> cells;
     cells.reserve(n * n);
     for (std::size_t i = 0; i < n; ++i) {

@@ -25,7 +25,9 @@ struct DyadCell {
 };
 
 /// n*n cells, row by row (low degree), then by high degree; n = scale size. Throws
-/// InputError (source "dyad grid") beyond max_grid_degrees, and whatever dyad_tones throws.
+/// InputError (source "dyad grid") beyond max_grid_degrees, naming Setting::order when the
+/// n*n dyads could compute more than max_tones tones (the limit of every request), and
+/// whatever dyad_tones throws.
 std::vector<DyadCell> dyad_grid(const Keyboard& keyboard, const ToneOptions& options);
 
 } // namespace terzo

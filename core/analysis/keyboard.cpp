@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "core/format.hpp"
+#include "core/setting_error.hpp"
 
 namespace terzo {
 
@@ -38,10 +39,10 @@ Keyboard::Keyboard(Scale scale, double ref_hz, int span, const std::string& tuni
     : scale_(std::move(scale)), ref_hz_(ref_hz), span_(span),
       period_cents_(scale_.period().cents()) {
     if (!std::isfinite(ref_hz) || ref_hz < min_ref_hz || ref_hz > max_ref_hz)
-        fail({"--ref-hz"}, "reference frequency " + number_text(ref_hz) +
+        fail(Setting::ref_hz, "reference frequency " + number_text(ref_hz) +
                                " Hz is outside the allowed range 0.001 to 100000 Hz");
     if (span < 1 || span > max_span)
-        fail({"--span"}, "span " + std::to_string(span) + " is outside the allowed range 1 to " +
+        fail(Setting::span, "span " + std::to_string(span) + " is outside the allowed range 1 to " +
                              std::to_string(max_span) + " periods");
     TERZO_ASSERT(period_cents_ > 0.0);
     // Landings count periods in an int; a period this small would make those counts (and
@@ -66,11 +67,12 @@ Keyboard::Keyboard(Scale scale, double ref_hz, int span, const std::string& tuni
     notes_.push_back(note(0, span_));
     for (const Note& n : notes_)
         if (!(n.hz >= min_note_hz && n.hz <= max_note_hz))
-            fail({tuning_name}, "degree " + std::to_string(n.degree) + ", period " +
-                                    std::to_string(n.period) + " would sound at " +
-                                    number_text(n.hz) +
-                                 " Hz, outside the 0.000001 to 1000000000 Hz a keyboard allows; "
-                                 "check the tuning, --ref-hz and --span");
+            fail({tuning_name},
+                 "degree " + std::to_string(n.degree) + ", period " + std::to_string(n.period) +
+                     " would sound at " + number_text(n.hz) +
+                     " Hz, outside the 0.000001 to 1000000000 Hz a keyboard allows; "
+                     "check the tuning, {ref-hz} and {span}",
+                 {Setting::ref_hz, Setting::span});
 
     for (std::size_t d = 0; d < scale_.size(); ++d) {
         double c = scale_.degree(d).cents();

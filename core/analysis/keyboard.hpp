@@ -38,8 +38,8 @@ struct Note {
 
 class Keyboard {
 public:
-    /// Lays `scale` over `span` periods from `ref_hz`. Throws InputError naming "--ref-hz" or
-    /// "--span" when ref_hz is outside [min_ref_hz, max_ref_hz] or span outside [1, max_span],
+    /// Lays `scale` over `span` periods from `ref_hz`. Throws InputError naming Setting::ref_hz
+    /// or Setting::span when ref_hz is outside [min_ref_hz, max_ref_hz] or span outside [1, max_span],
     /// and naming `tuning_name` (the tuning's file) when the period is below min_period_cents
     /// or a note would sound outside [min_note_hz, max_note_hz].
     Keyboard(Scale scale, double ref_hz = default_ref_hz, int span = 1,

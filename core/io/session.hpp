@@ -19,7 +19,7 @@ namespace terzo {
 /// Analysis settings every view shares (ranges as in core/analysis: keyboard.hpp and
 /// combination.hpp).
 struct SessionSettings {
-    double reference_hz = 130.8127827;     ///< degree 0 of the lowest period (C3 at A4 = 440)
+    double reference_hz = default_ref_hz;  ///< degree 0 of the lowest period (C4 at A4 = 440, as the CLI)
     int span = 3;                          ///< keyboard span in periods, 1..max_span
     int max_order = 5;                     ///< largest combination-tone order |a| + |b|
     int partials = 1;                      ///< partials per note (1 = pure tones)

@@ -3,6 +3,7 @@
 #include <catch2/catch.hpp>
 
 
+#include "core/setting_error.hpp"
 #include "tests/support/scales.hpp"
 
 using namespace terzo;
@@ -75,4 +76,25 @@ TEST_CASE("the grid refuses tunings above its size limit", "[dyad_grid]") {
 TEST_CASE("the grid passes option errors through", "[dyad_grid]") {
     Keyboard kb(demo(), 261.6255653, 1);
     REQUIRE_THROWS_AS(dyad_grid(kb, order(13)), InputError);
+}
+
+TEST_CASE("the grid refuses more tones than any one request may compute, naming what to lower", "[dyad_grid]") {
+    // 12 degrees: 144 dyads; order 12 has 3(k-1) terms for each order k = 2..12, 198 in all;
+    // 32 partials a note make 32^2 pairs: 144 * 198 * 1024 = 29,196,288 tones, over 1,000,000.
+    Keyboard kb(equal_division(12), 261.6255653, 1);
+    ToneOptions o = order(12);
+    o.partials = 32;
+    try {
+        dyad_grid(kb, o);
+        FAIL("the grid was computed");
+    } catch (const InputError& e) {
+        CHECK(std::string(e.what()) == "--order: error: the dyad grid of 12 degrees could compute 29196288 tones (144 dyads), "
+                                       "more than the limit of 1000000; lower --order or --partials");
+        // The window words the same refusal with its own labels.
+        CHECK(worded(e, [](Setting s) { return "[" + std::string(setting_name(s)) + "]"; }) ==
+              "[order]: error: the dyad grid of 12 degrees could compute 29196288 tones (144 dyads), "
+              "more than the limit of 1000000; lower [order] or [partials]");
+    }
+    o.partials = 2; // 144 * 198 * 4 = 114,048 tones: computed
+    CHECK(dyad_grid(kb, o).size() == 144u);
 }

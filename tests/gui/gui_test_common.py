@@ -89,3 +89,24 @@ def blobs(image, colour, min_size=80):
             cy = sum(p[1] for p in members) / len(members)
             found.append((cx, cy, len(members)))
     return found
+
+
+def pids_in_session(session_id, name):
+    """Process ids named `name` in the session `session_id` (a Popen started with
+    start_new_session=True has its pid as session id), read from /proc (no procps needed)."""
+    import os
+    found = []
+    for entry in os.listdir("/proc"):
+        if not entry.isdigit():
+            continue
+        try:
+            with open(f"/proc/{entry}/stat") as f:
+                stat = f.read()
+        except OSError:
+            continue
+        # pid (comm) state ppid pgrp session ...: comm may hold spaces, so split after ')'.
+        comm = stat[stat.index("(") + 1:stat.rindex(")")]
+        fields = stat[stat.rindex(")") + 2:].split()
+        if comm == name and int(fields[3]) == session_id:
+            found.append(int(entry))
+    return found

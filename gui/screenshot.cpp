@@ -1,0 +1,32 @@
+#include "gui/screenshot.hpp"
+
+#include <algorithm>
+#include <cstddef>
+
+#include <SFML/Graphics/Texture.hpp>
+
+#include "gui/image_file.hpp"
+
+namespace terzo::gui {
+
+sf::Image grab_window(const sf::RenderWindow& window) {
+    sf::Texture tex;
+    tex.create(window.getSize().x, window.getSize().y);
+    tex.update(window);
+    return tex.copyToImage();
+}
+
+void save_window_png(const sf::Image& image, const std::string& path, bool force) {
+    const int w = static_cast<int>(image.getSize().x), h = static_cast<int>(image.getSize().y);
+    save_png(path, image.getPixelsPtr(), w, h, w * 4, force ? Overwrite::allow : Overwrite::refuse);
+}
+
+void save_part_png(const sf::Image& image, const float (&rect)[4], const std::string& path, bool force) {
+    const int w = static_cast<int>(image.getSize().x), h = static_cast<int>(image.getSize().y);
+    const int x = std::clamp(static_cast<int>(rect[0]), 0, w - 1), y = std::clamp(static_cast<int>(rect[1]), 0, h - 1);
+    const int cw = std::clamp(static_cast<int>(rect[2]), 1, w - x), ch = std::clamp(static_cast<int>(rect[3]), 1, h - y);
+    save_png(path, image.getPixelsPtr() + (static_cast<std::size_t>(y) * w + x) * 4, cw, ch, w * 4,
+             force ? Overwrite::allow : Overwrite::refuse);
+}
+
+} // namespace terzo::gui
