@@ -24,5 +24,6 @@ void add_sheet(CLI::App& app);
 void add_compare(CLI::App& app);
 void add_render(CLI::App& app);
 void add_export(CLI::App& app);
+void add_suggest(CLI::App& app);
 
 } // namespace terzo::cli
