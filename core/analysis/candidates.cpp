@@ -53,6 +53,11 @@ int limit_value(std::string_view kind, std::string_view value, int low, int high
     return std::atoi(std::string(value).c_str());
 }
 
+std::string not_a_candidate(std::string_view item) {
+    return "candidate " + excerpt(item) +
+           " is not a ratio p/q, a cents value such as 350.0, or odd:N, prime:N, edo:N";
+}
+
 // A cents value as in a .scl file: optional '-', digits, '.', digits (at least one digit).
 Pitch parse_cents_item(std::string_view item, const SourcePos& at) {
     std::string_view body = item.substr(item[0] == '-' ? 1 : 0);
@@ -61,9 +66,7 @@ Pitch parse_cents_item(std::string_view item, const SourcePos& at) {
     const bool ok = body.find('.', dot + 1) == std::string_view::npos &&
                     (whole.empty() || all_digits(whole)) &&
                     (fraction.empty() || all_digits(fraction)) && whole.size() + fraction.size() > 0;
-    if (!ok)
-        fail(at, "candidate " + excerpt(item) +
-                     " is not a ratio p/q, a cents value such as 350.0, or odd:N, prime:N, edo:N");
+    if (!ok) fail(at, not_a_candidate(item));
     const double c = std::strtod(std::string(item).c_str(), nullptr);
     if (!(std::fabs(c) <= 100000.0))
         fail(at, "cents value " + excerpt(item) + " is outside the allowed range -100000 to 100000");
@@ -120,6 +123,8 @@ CandidateSpec parse_candidate_spec(std::string_view text, const SourcePos& pos) 
         } else if (item.find('.') != std::string_view::npos) {
             spec.explicit_pitches.push_back(parse_cents_item(item, at));
         } else {
+            if (item.find_first_not_of("0123456789/-") != std::string_view::npos)
+                fail(at, not_a_candidate(item));
             Ratio r = parse_ratio(item, at);
             if (r.sign() <= 0) fail(at, "candidate ratio " + excerpt(item) + " is not positive");
             spec.explicit_pitches.push_back(Pitch::from_ratio(r));

@@ -128,12 +128,14 @@ TEST_CASE("a bad candidate list is rejected with its place and the rule", "[cand
     CHECK_THROWS_WITH(bad("edo:0"), "--candidates: error: edo value in \"edo:0\" is outside the allowed range 1 to 1200");
     CHECK_THROWS_WITH(bad("limit:5"), "--candidates: error: unknown candidate kind \"limit\"; use odd:N, prime:N, edo:N, ratios or cents");
     CHECK_THROWS_WITH(bad("3/0"), "--candidates: error: denominator is zero in \"3/0\"");
+    CHECK_THROWS_WITH(bad("-3/2"), "--candidates: error: candidate ratio \"-3/2\" is not positive");
+    CHECK_THROWS_WITH(bad("99999999999999999999/2"), "--candidates: error: number too large in \"99999999999999999999/2\" (numerators and denominators are limited to 9223372036854775807)");
     CHECK_THROWS_WITH(bad("0/5"), "--candidates: error: candidate ratio \"0/5\" is not positive");
     CHECK_THROWS_WITH(bad("1.2.3"), "--candidates: error: candidate \"1.2.3\" is not a ratio p/q, a cents value such as 350.0, or odd:N, prime:N, edo:N");
     CHECK_THROWS_WITH(bad("."), "--candidates: error: candidate \".\" is not a ratio p/q, a cents value such as 350.0, or odd:N, prime:N, edo:N");
     CHECK_THROWS_WITH(bad("200000.0"), "--candidates: error: cents value \"200000.0\" is outside the allowed range -100000 to 100000");
     SECTION("columns count from the option's text when it has one") {
-        CHECK_THROWS_WITH(parse_candidate_spec("7/4, foo", {"x", 1, 1}), "x:1:6: error: candidate ratio \"foo\" is not a ratio p/q, a cents value such as 350.0, or odd:N, prime:N, edo:N");
+        CHECK_THROWS_WITH(parse_candidate_spec("7/4, foo", {"x", 1, 1}), "x:1:6: error: candidate \"foo\" is not a ratio p/q, a cents value such as 350.0, or odd:N, prime:N, edo:N");
     }
     SECTION("too many pitches") {
         CHECK_THROWS_WITH(pitches("edo:1200", Pitch::from_ratio(Ratio(1 << 30))),

@@ -24,7 +24,7 @@ namespace {
 // The 7-note just scale of the tests (tests/analysis/rank_test.cpp).
 const char* seven_scl = "seven just notes\n 7\n 9/8\n 5/4\n 4/3\n 3/2\n 5/3\n 15/8\n 2/1\n";
 // A scale of our own in a 3/1 period.
-const char* tritave_scl = "five notes in a tritave\n 5\n 4/3\n 5/3\n 2/1\n 7/3\n 8/3\n 3/1\n";
+const char* tritave_scl = "six notes in a tritave\n 6\n 4/3\n 5/3\n 2/1\n 7/3\n 8/3\n 3/1\n";
 
 std::vector<Pitch> candidates(const std::string& spec, const Keyboard& kb) {
     return candidate_pitches(parse_candidate_spec(spec, {"--candidates"}), kb.scale().period(),
