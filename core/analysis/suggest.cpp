@@ -45,10 +45,10 @@ struct Sums {
 
 double rms(double squares, double weight) { return weight > 0.0 ? std::sqrt(squares / weight) : 0.0; }
 
-// A tone of the existing dyads that counts in the fit.
+// A tone of the existing dyads that counts in the fit and does not land exactly.
 struct Counted {
+    double place; // cents reduced into the period
     double cents, weight, deviation, hz;
-    bool exact;
     std::uint32_t dyad, tone;
 };
 
@@ -59,10 +59,73 @@ struct CandidateLanding {
     double deviation;
 };
 
-CandidateLanding candidate_landing(double cents, double x, double period) {
-    const int k = int(std::lround((cents - x) / period));
+// floor and round of values well inside int's range, without a library call.
+int floor_int(double v) {
+    const int t = int(v);
+    return double(t) > v ? t - 1 : t;
+}
+int round_int(double v) { return floor_int(v + 0.5); }
+
+// `inverse` is 1 / period: a product instead of a division. Near half a period it may pick
+// the farther of two notes, but no landing is taken from that far (see takes_landing's uses).
+CandidateLanding candidate_landing(double cents, double x, double period, double inverse) {
+    const int k = round_int((cents - x) * inverse);
     return {k, cents - (k * period + x)};
 }
+
+// The deviation of a tone from the nearest note of the keyboard's own degrees: what
+// nearest_note() returns, computed the same way (the tone minus the note, the note at a whole
+// number of periods plus its place in the period; on a tie the lower note), with a bucket
+// table instead of a binary search because it runs for every new tone of every candidate.
+class NearestDeviation {
+public:
+    explicit NearestDeviation(const Keyboard& kb)
+        : period_(kb.period_cents()), inverse_(1.0 / period_), half_(period_ / 2.0) {
+        for (const auto& e : kb.sorted_degrees()) places_.push_back(e.cents_in_period);
+        // first_[b]: the first place at or above bucket b's start.
+        first_.resize(buckets + 1);
+        std::size_t i = 0;
+        for (std::size_t b = 0; b <= buckets; ++b) {
+            const double start = period_ * double(b) / double(buckets);
+            while (i < places_.size() && places_[i] < start) ++i;
+            first_[b] = i;
+        }
+    }
+
+    /// The deviation from the nearest degree, and (in `landing`) the nearest note of a degree
+    /// placed at `x` in the period, as a period count and deviation.
+    double operator()(double cents, double x, CandidateLanding& landing) const {
+        // The period count by a product, not a division; corrected when it is one off.
+        int p = floor_int(cents * inverse_);
+        double in = cents - p * period_;
+        if (in >= period_) {
+            in -= period_;
+            ++p;
+        } else if (in < 0.0) {
+            in += period_;
+            --p;
+        }
+        const double from_x = in - x;
+        landing.period = from_x > half_ ? p + 1 : from_x < -half_ ? p - 1 : p;
+        landing.deviation = cents - (landing.period * period_ + x);
+        // The first place strictly above `in`, as neighbours() in landing.cpp finds it.
+        std::size_t b = std::size_t(in / period_ * double(buckets));
+        if (b >= buckets) b = buckets - 1;
+        std::size_t hi = first_[b];
+        while (hi < places_.size() && places_[hi] <= in) ++hi;
+        const double below = hi > 0 ? cents - (p * period_ + places_[hi - 1])
+                                    : cents - ((p - 1) * period_ + places_.back());
+        const double above = hi < places_.size() ? cents - (p * period_ + places_[hi])
+                                                 : cents - ((p + 1) * period_ + places_.front());
+        return std::fabs(below) <= std::fabs(above) ? below : above;
+    }
+
+private:
+    static constexpr std::size_t buckets = 256;
+    double period_, inverse_, half_;
+    std::vector<double> places_;
+    std::vector<std::size_t> first_;
+};
 
 // Would the landing move from a note at deviation `old` to the new note at `d`? The nearer
 // wins; on a tie, the lower note, as landing() decides.
@@ -122,21 +185,31 @@ struct Score {
 class Grower {
 public:
     Grower(const Keyboard& kb, const SuggestOptions& o)
-        : kb_(kb), o_(o), terms_(combination_terms(o.tones.order)) {
+        : kb_(kb), o_(o), terms_(combination_terms(o.tones.order)), nearest_(kb) {
         dyads_ = o.chord ? chord_tones(kb, *o.chord, o.tones) : keyboard_tones(kb, o.tones);
+        const double period = kb.period_cents();
         for (std::size_t i = 0; i < dyads_.size(); ++i)
             for (std::size_t j = 0; j < dyads_[i].tones.size(); ++j) {
                 const Tone& t = dyads_[i].tones[j];
                 const double w = fit_weight(t, o.fit);
                 if (w <= 0.0) continue;
-                counted_.push_back({t.cents, w, t.landing.deviation_cents, t.hz, t.landing.exact,
-                                    std::uint32_t(i), std::uint32_t(j)});
                 base_.add(w, t.landing.deviation_cents, t.hz);
+                if (t.landing.exact) continue; // deviation 0: no new note can take its landing
+                const double place = t.cents - floor_int(t.cents / period) * period;
+                counted_.push_back({place, t.cents, w, t.landing.deviation_cents, t.hz,
+                                    std::uint32_t(i), std::uint32_t(j)});
+                widest_ = std::max(widest_, std::fabs(t.landing.deviation_cents));
             }
+        std::sort(counted_.begin(), counted_.end(),
+                  [](const Counted& a, const Counted& b) { return a.place < b.place; });
         base_fit_ = fit(dyads_, o.fit);
         if (!o.chord) {
             const std::uint64_t n = kb.notes().size() + std::uint64_t(kb.span());
             check_tone_count(n * (n - 1) / 2, o.tones); // the grown keyboard's dyads
+        }
+        if (auto r = kb.scale().period().ratio()) {
+            power_offset_ = cached_periods;
+            for (int k = -cached_periods; k <= kb.span() + cached_periods; ++k) period_powers_.push_back(r->pow(k));
         }
     }
 
@@ -144,38 +217,34 @@ public:
 
     Addition score(const Pitch& candidate) const {
         Score s;
-        const double x = candidate.cents(), period = kb_.period_cents();
-        const double near = o_.near_cents;
-        auto note_landing = [&](double dev, double hz, bool exact) {
-            if (std::fabs(dev) > near) return;
-            ++s.near;
-            if (exact) ++s.exact;
-            if (hz < pitch_perception_floor_hz) ++s.infrasonic;
-        };
+        const double x = candidate.cents(), period = kb_.period_cents(), inverse = 1.0 / period;
+        const std::optional<Ratio> ratio = candidate.ratio();
 
-        // Existing tones: only landings move.
-        for (const Counted& t : counted_) {
-            if (t.exact) continue; // an exact landing has deviation 0 and keeps its note
-            CandidateLanding c = candidate_landing(t.cents, x, period);
-            if (!takes_landing(c.deviation, t.deviation)) continue;
+        // Existing tones: only landings move, and only those of tones whose place in the
+        // period lies within the widest deviation of the new note.
+        const double reach = widest_ + 1e-9;
+        for_places(x - reach, x + reach, [&](const Counted& t) {
+            CandidateLanding c = candidate_landing(t.cents, x, period, inverse);
+            if (!takes_landing(c.deviation, t.deviation)) return;
             bool exact = false;
             if (std::fabs(c.deviation) <= exact_check_cents) {
                 const Tone& tone = dyads_[t.dyad].tones[t.tone];
-                exact = equals_candidate_note(kb_, tone.exact_value(), candidate, c.period);
+                exact = tone.ratio && ratio ? equals_note_ratio(*tone.ratio, *ratio, c.period)
+                                            : equals_candidate_note(kb_, tone.exact_value(), candidate, c.period);
                 if (exact) c.deviation = 0.0;
             }
             s.delta.move(t.weight, t.deviation, c.deviation, t.hz);
-            note_landing(c.deviation, t.hz, exact);
-        }
+            note_landing(s, c.deviation, t.hz, exact);
+        });
 
         // New dyads: each note of the new degree with every other note of the grown keyboard.
         if (!o_.chord) {
             std::vector<Note> added;
             for (int p = 0; p < kb_.span(); ++p) added.push_back(candidate_note(kb_, candidate, p));
             for (std::size_t i = 0; i < added.size(); ++i) {
-                for (const Note& other : kb_.notes()) dyad(added[i], other, candidate, s, note_landing);
+                for (const Note& other : kb_.notes()) dyad(added[i], other, candidate, ratio, s);
                 for (std::size_t j = i + 1; j < added.size(); ++j)
-                    dyad(added[i], added[j], candidate, s, note_landing);
+                    dyad(added[i], added[j], candidate, ratio, s);
             }
         }
 
@@ -197,23 +266,63 @@ public:
     }
 
 private:
-    // The counted tones of one new dyad (the candidate's note `c` and `other`), landed on the
-    // grown keyboard: the base keyboard's nearest note, or the new note when it is nearer.
-    // Tones are computed as the engine computes them: for rational notes over a common
-    // denominator (the sign decided exactly, cents from the exact ratio in double), otherwise
-    // in floating point with the engine's rule that a tone below 1e-9 of its parts is zero.
-    template <class OnLanding>
-    void dyad(const Note& c, const Note& other, const Pitch& candidate, Score& s,
-              OnLanding& on_landing) const {
+    // Calls f for each counted tone whose place in the period lies in [low, high], a range
+    // that may reach past either end of the period (it wraps).
+    template <class F>
+    void for_places(double low, double high, F&& f) const {
+        const double period = kb_.period_cents();
+        if (high - low >= period) {
+            for (const Counted& t : counted_) f(t);
+            return;
+        }
+        auto run = [&](double a, double b) {
+            auto it = std::lower_bound(counted_.begin(), counted_.end(), a,
+                                       [](const Counted& t, double v) { return t.place < v; });
+            for (; it != counted_.end() && it->place <= b; ++it) f(*it);
+        };
+        if (low < 0.0) {
+            run(low + period, period);
+            run(0.0, high);
+        } else if (high >= period) {
+            run(low, period);
+            run(0.0, high - period);
+        } else {
+            run(low, high);
+        }
+    }
+
+    void note_landing(Score& s, double dev, double hz, bool exact) const {
+        if (std::fabs(dev) > o_.near_cents) return;
+        ++s.near;
+        if (exact) ++s.exact;
+        if (hz < pitch_perception_floor_hz) ++s.infrasonic;
+    }
+
+    // Is the rational tone equal to the new note `period` periods up (candidate * P^period)?
+    bool equals_note_ratio(const Ratio& tone, const Ratio& candidate, int period) const {
+        if (period == 0) return tone == candidate;
+        if (period_powers_.empty()) return false; // a tempered period: other periods are irrational
+        const int i = period + power_offset_;
+        if (i >= 0 && std::size_t(i) < period_powers_.size()) return tone == candidate * period_powers_[std::size_t(i)];
+        return tone == candidate * kb_.scale().period().ratio()->pow(period);
+    }
+
+    // The counted tones of one new dyad (the new note `c` and `other`), landed on the grown
+    // keyboard: the base keyboard's nearest note, or the new note when it is nearer. Tones are
+    // computed as the engine computes them: for rational notes over a common denominator (the
+    // sign decided exactly, cents from the exact ratio in double), otherwise in floating point
+    // with the engine's rule that a tone below 1e-9 of its parts is zero.
+    void dyad(const Note& c, const Note& other, const Pitch& candidate, const std::optional<Ratio>& ratio,
+              Score& s) const {
         if (c.cents == other.cents) return; // a unison is no dyad
         const Note& low = c.cents < other.cents ? c : other;
         const Note& high = c.cents < other.cents ? other : c;
         const double fl = low.hz, fh = high.hz, ref = kb_.ref_hz();
-        const double x = candidate.cents(), period = kb_.period_cents();
+        const double x = candidate.cents();
 
         bool small = false;
         std::int64_t nl = 0, nh = 0, den = 1;
-        if (o_.tones.exact) {
+        if (o_.tones.exact && ratio) {
             auto rl = low.pitch.ratio(), rh = high.pitch.ratio();
             if (rl && rh && rl->is_small() && rh->is_small()) {
                 const std::int64_t g = std::gcd(rl->den(), rh->den());
@@ -232,42 +341,52 @@ private:
             for (int j = 1; j <= o_.tones.partials; ++j)
                 for (const CombinationTerm& t : terms_) {
                     const std::int64_t A = std::int64_t(t.a) * i, B = std::int64_t(t.b) * j;
-                    double hz, ratio = 0.0;
+                    double hz, r = 0.0;
+                    i128 n = 0;
                     if (small) {
-                        const i128 n = i128(A) * nl + i128(B) * nh;
+                        n = i128(A) * nl + i128(B) * nh;
                         if (n <= 0) continue;
-                        ratio = double(n) / double(den);
-                        hz = ref * ratio;
+                        // (an int64 conversion where it fits: the same double, no library call)
+                        r = (fits64(n) ? double(std::int64_t(n)) : double(n)) / double(den);
+                        hz = ref * r;
                     } else {
                         hz = A * fl + B * fh;
                         if (hz <= 1e-9 * (std::abs(A) * fl + std::abs(B) * fh)) continue;
                     }
                     const double w = fit_weight(t, audibility(t, fl, fh, i, j), hz, o_.fit);
                     if (w <= 0.0) continue;
-                    const double cents = small ? 1200.0 * std::log2(ratio) : 1200.0 * std::log2(hz / ref);
-                    const Landing base = nearest_note(kb_, cents);
-                    CandidateLanding cl = candidate_landing(cents, x, period);
-                    if (!takes_landing(cl.deviation, base.deviation_cents)) {
-                        s.delta.add(w, base.deviation_cents, hz);
+                    const double cents = small ? 1200.0 * std::log2(r) : 1200.0 * std::log2(hz / ref);
+                    CandidateLanding cl;
+                    const double base = nearest_(cents, x, cl);
+                    if (!takes_landing(cl.deviation, base)) {
+                        s.delta.add(w, base, hz);
                         continue;
                     }
                     bool exact = false;
                     if (std::fabs(cl.deviation) <= exact_check_cents) {
-                        exact = equals_candidate_note(kb_, exact_tone(low, high, A, B), candidate, cl.period);
+                        exact = small && fits64(n)
+                                    ? equals_note_ratio(Ratio(std::int64_t(n), den), *ratio, cl.period)
+                                    : equals_candidate_note(kb_, exact_tone(low, high, A, B), candidate, cl.period);
                         if (exact) cl.deviation = 0.0;
                     }
                     s.delta.add(w, cl.deviation, hz);
-                    on_landing(cl.deviation, hz, exact);
+                    note_landing(s, cl.deviation, hz, exact);
                 }
     }
+
+    static constexpr int cached_periods = 64;
 
     const Keyboard& kb_;
     const SuggestOptions& o_;
     std::vector<CombinationTerm> terms_;
+    NearestDeviation nearest_;
     std::vector<DyadTones> dyads_;
-    std::vector<Counted> counted_;
+    std::vector<Counted> counted_; // by place in the period
+    double widest_ = 0.0;          // largest |deviation| among them
     Sums base_;
     Fit base_fit_;
+    int power_offset_ = 0;
+    std::vector<Ratio> period_powers_; // period^k for k = -power_offset_ ..., when rational
 };
 
 std::vector<DyadTones> tones_for(const Keyboard& kb, const SuggestOptions& o) {
