@@ -186,6 +186,11 @@ class Grower {
 public:
     Grower(const Keyboard& kb, const SuggestOptions& o)
         : kb_(kb), o_(o), terms_(combination_terms(o.tones.order)), nearest_(kb) {
+        if (!o.chord) {
+            // The grown keyboard's dyads, checked before any work (the scale's own may pass).
+            const std::uint64_t n = kb.notes().size() + std::uint64_t(kb.span());
+            check_tone_count(n * (n - 1) / 2, o.tones);
+        }
         dyads_ = o.chord ? chord_tones(kb, *o.chord, o.tones) : keyboard_tones(kb, o.tones);
         const double period = kb.period_cents();
         for (std::size_t i = 0; i < dyads_.size(); ++i)
@@ -203,10 +208,6 @@ public:
         std::sort(counted_.begin(), counted_.end(),
                   [](const Counted& a, const Counted& b) { return a.place < b.place; });
         base_fit_ = fit(dyads_, o.fit);
-        if (!o.chord) {
-            const std::uint64_t n = kb.notes().size() + std::uint64_t(kb.span());
-            check_tone_count(n * (n - 1) / 2, o.tones); // the grown keyboard's dyads
-        }
         if (auto r = kb.scale().period().ratio()) {
             power_offset_ = cached_periods;
             for (int k = -cached_periods; k <= kb.span() + cached_periods; ++k) period_powers_.push_back(r->pow(k));
