@@ -5,11 +5,6 @@
 
 namespace terzo {
 
-double fit_weight(const CombinationTerm& term, double audibility, double hz, const FitOptions& options) {
-    if (hz < options.pitch_floor_hz) return 0.0;
-    return audibility / (term.order() - 1);
-}
-
 double fit_weight(const Tone& tone, const FitOptions& options) {
     return fit_weight(tone.term, tone.audibility, tone.hz, options);
 }

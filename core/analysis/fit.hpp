@@ -31,8 +31,11 @@ struct Fit {
 
 /// Weight of a tone of `term` at `hz` with audibility estimate `audibility`: the estimate
 /// divided by (order - 1), so higher orders count less; 0 below options.pitch_floor_hz.
-double fit_weight(const CombinationTerm& term, double audibility, double hz,
-                  const FitOptions& options = {});
+inline double fit_weight(const CombinationTerm& term, double audibility, double hz,
+                         const FitOptions& options = {}) {
+    if (hz < options.pitch_floor_hz) return 0.0;
+    return audibility / (term.order() - 1);
+}
 /// The same for one computed tone.
 double fit_weight(const Tone& tone, const FitOptions& options = {});
 

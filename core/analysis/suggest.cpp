@@ -4,6 +4,7 @@
 #include <cmath>
 #include <cstdint>
 #include <cstdlib>
+#include <map>
 #include <numeric>
 
 #include "core/analysis/audibility.hpp"
@@ -45,11 +46,23 @@ struct Sums {
 
 double rms(double squares, double weight) { return weight > 0.0 ? std::sqrt(squares / weight) : 0.0; }
 
-// A tone of the existing dyads that counts in the fit and does not land exactly.
+// A tone of the existing dyads that counts in the fit and is not (within rounding) on a note.
 struct Counted {
     double place; // cents reduced into the period
     double cents, weight, deviation, hz;
-    std::uint32_t dyad, tone;
+    std::uint32_t dyad;   // index into the existing dyads
+    std::int32_t a, b;    // the tone is a*f_low + b*f_high (partials included)
+    std::int64_t n;       // for a rational dyad over a common denominator: the numerator
+    bool small;           // n is set
+};
+
+// One tone as the engine computes it (see Grower::each_tone).
+struct ToneValue {
+    const CombinationTerm* term;
+    std::int64_t a, b;
+    double hz, cents, weight, audibility;
+    i128 n;      // numerator over the dyad's common denominator, when `small`
+    bool small;
 };
 
 // The new note nearest a tone: its period k and the deviation, computed as landing() does
@@ -92,6 +105,12 @@ public:
         }
     }
 
+    /// The deviation from the nearest degree.
+    double operator()(double cents) const {
+        CandidateLanding unused;
+        return (*this)(cents, 0.0, unused);
+    }
+
     /// The deviation from the nearest degree, and (in `landing`) the nearest note of a degree
     /// placed at `x` in the period, as a period count and deviation.
     double operator()(double cents, double x, CandidateLanding& landing) const {
@@ -109,7 +128,7 @@ public:
         landing.period = from_x > half_ ? p + 1 : from_x < -half_ ? p - 1 : p;
         landing.deviation = cents - (landing.period * period_ + x);
         // The first place strictly above `in`, as neighbours() in landing.cpp finds it.
-        std::size_t b = std::size_t(in / period_ * double(buckets));
+        std::size_t b = std::size_t(in * inverse_ * double(buckets));
         if (b >= buckets) b = buckets - 1;
         std::size_t hi = first_[b];
         while (hi < places_.size() && places_[hi] <= in) ++hi;
@@ -186,35 +205,72 @@ class Grower {
 public:
     Grower(const Keyboard& kb, const SuggestOptions& o)
         : kb_(kb), o_(o), terms_(combination_terms(o.tones.order)), nearest_(kb) {
+        // The existing dyads, in the order keyboard_tones and chord_tones take them.
+        const std::vector<Note>& all = o.chord ? *o.chord : kb.notes();
+        std::vector<Note> notes = all;
+        if (o.chord)
+            std::stable_sort(notes.begin(), notes.end(), [](const Note& x, const Note& y) { return x.cents < y.cents; });
+        check_tone_count(notes.size() * (notes.size() - 1) / 2, o.tones);
         if (!o.chord) {
             // The grown keyboard's dyads, checked before any work (the scale's own may pass).
-            const std::uint64_t n = kb.notes().size() + std::uint64_t(kb.span());
+            const std::uint64_t n = notes.size() + std::uint64_t(kb.span());
             check_tone_count(n * (n - 1) / 2, o.tones);
         }
-        dyads_ = o.chord ? chord_tones(kb, *o.chord, o.tones) : keyboard_tones(kb, o.tones);
-        const double period = kb.period_cents();
-        for (std::size_t i = 0; i < dyads_.size(); ++i)
-            for (std::size_t j = 0; j < dyads_[i].tones.size(); ++j) {
-                const Tone& t = dyads_[i].tones[j];
-                const double w = fit_weight(t, o.fit);
-                if (w <= 0.0) continue;
-                base_.add(w, t.landing.deviation_cents, t.hz);
-                if (t.landing.exact) continue; // deviation 0: no new note can take its landing
-                const double place = t.cents - floor_int(t.cents / period) * period;
-                counted_.push_back({place, t.cents, w, t.landing.deviation_cents, t.hz,
-                                    std::uint32_t(i), std::uint32_t(j)});
-                widest_ = std::max(widest_, std::fabs(t.landing.deviation_cents));
+        dyads_.reserve(notes.size() * (notes.size() - 1) / 2);
+        for (std::size_t i = 0; i < notes.size(); ++i)
+            for (std::size_t j = i + 1; j < notes.size(); ++j) {
+                const Note* lo = &notes[i];
+                const Note* hi = &notes[j];
+                if (lo->cents == hi->cents) continue; // a unison is no dyad
+                if (lo->cents > hi->cents) std::swap(lo, hi);
+                dyads_.push_back({*lo, *hi});
             }
+
+        // The scale's own tones: each counts with its landing on the scale, and those not on
+        // a note (within rounding) are kept, by place in the period, for new notes to take.
+        const double period = kb.period_cents();
+        counted_.reserve(tone_count_bound(dyads_.size(), o.tones)); // one allocation, no copies
+        for (std::size_t d = 0; d < dyads_.size(); ++d)
+            each_tone(dyads_[d].first, dyads_[d].second, true, [&](const ToneValue& t) {
+                const double dev = nearest_(t.cents);
+                base_.add(t.weight, dev, t.hz);
+                ++base_tones_;
+                if (std::fabs(dev) <= exact_check_cents) return; // no other note is that near
+                const double place = t.cents - floor_int(t.cents / period) * period;
+                counted_.push_back({place, t.cents, t.weight, dev, t.hz, std::uint32_t(d), std::int32_t(t.a),
+                                    std::int32_t(t.b), t.small ? std::int64_t(t.n) : 0,
+                                    t.small && fits64(t.n)});
+                widest_ = std::max(widest_, std::fabs(dev));
+            });
         std::sort(counted_.begin(), counted_.end(),
                   [](const Counted& a, const Counted& b) { return a.place < b.place; });
-        base_fit_ = fit(dyads_, o.fit);
         if (auto r = kb.scale().period().ratio()) {
             power_offset_ = cached_periods;
             for (int k = -cached_periods; k <= kb.span() + cached_periods; ++k) period_powers_.push_back(r->pow(k));
         }
+        for (int p = 0; p < kb.span(); ++p) {
+            // Powers of a 2/1 period are exact in floating point, so copies keep their hertz.
+            const auto r = kb.scale().period().ratio();
+            shift_factors_.push_back(r && r->is_small() ? double(r->pow(p).to_long_double())
+                                                        : std::exp2(p * period / 1200.0));
+        }
+        if (!o.chord) {
+            std::map<std::pair<int, int>, std::size_t> index;
+            for (const Note& n : kb.notes())
+                for (int p = 0; p < kb.span(); ++p) {
+                    const std::pair<int, int> key{n.degree, n.period - p};
+                    auto [it, added] = index.emplace(key, groups_.size());
+                    if (added) groups_.push_back({kb.note(key.first, key.second), {}});
+                    groups_[it->second].shifts.push_back(p);
+                }
+            own_shifts_.resize(std::size_t(kb.span()));
+            for (int rel = 1; rel < kb.span(); ++rel)
+                for (int p = 0; p + rel < kb.span(); ++p) own_shifts_[std::size_t(rel)].push_back(p);
+        }
     }
 
-    const Fit& base_fit() const { return base_fit_; }
+    double base_fit() const { return rms(base_.squares, base_.weight); }
+    std::size_t base_tones() const { return base_tones_; }
 
     Addition score(const Pitch& candidate) const {
         Score s;
@@ -229,9 +285,9 @@ public:
             if (!takes_landing(c.deviation, t.deviation)) return;
             bool exact = false;
             if (std::fabs(c.deviation) <= exact_check_cents) {
-                const Tone& tone = dyads_[t.dyad].tones[t.tone];
-                exact = tone.ratio && ratio ? equals_note_ratio(*tone.ratio, *ratio, c.period)
-                                            : equals_candidate_note(kb_, tone.exact_value(), candidate, c.period);
+                const auto& [low, high] = dyads_[t.dyad];
+                exact = t.small && ratio ? equals_note_ratio(Ratio(t.n, common_denominator(low, high)), *ratio, c.period)
+                                         : equals_candidate_note(kb_, exact_tone(low, high, t.a, t.b), candidate, c.period);
                 if (exact) c.deviation = 0.0;
             }
             s.delta.move(t.weight, t.deviation, c.deviation, t.hz);
@@ -239,20 +295,22 @@ public:
         });
 
         // New dyads: each note of the new degree with every other note of the grown keyboard.
+        // The dyad of the new note in period p with a note in period q is the dyad of the new
+        // note in period 0 with that note in period q - p, p periods up: its tones are the same
+        // p periods up, with the same audibility (a function of the frequency ratio) and the
+        // same landings on the periodic keyboard. So each is computed once, in period 0, and
+        // counted at every period where the keyboard has it (the pitch floor decided per copy).
         if (!o_.chord) {
-            std::vector<Note> added;
-            for (int p = 0; p < kb_.span(); ++p) added.push_back(candidate_note(kb_, candidate, p));
-            for (std::size_t i = 0; i < added.size(); ++i) {
-                for (const Note& other : kb_.notes()) dyad(added[i], other, candidate, ratio, s);
-                for (std::size_t j = i + 1; j < added.size(); ++j)
-                    dyad(added[i], added[j], candidate, ratio, s);
-            }
+            const Note c0 = candidate_note(kb_, candidate, 0);
+            for (const Group& g : groups_) new_dyad(c0, g.partner, g.shifts, candidate, ratio, s);
+            for (int rel = 1; rel < kb_.span(); ++rel) // pairs of the new degree's own notes
+                new_dyad(c0, candidate_note(kb_, candidate, rel), own_shifts_[std::size_t(rel)], candidate, ratio, s);
         }
 
         Addition a;
         a.pitch = candidate;
         a.fit = rms(base_.squares + s.delta.squares, base_.weight + s.delta.weight);
-        a.gain = base_fit_.rms_cents - a.fit;
+        a.gain = base_fit() - a.fit;
         a.exact_landings = s.exact;
         a.near_landings = s.near;
         if (o_.fit.pitch_floor_hz < pitch_perception_floor_hz) {
@@ -267,6 +325,63 @@ public:
     }
 
 private:
+    // The common denominator of two small rational notes, when their numerators over it fit
+    // in 64 bits (the engine's fast path); 0 otherwise.
+    struct Common {
+        std::int64_t nl = 0, nh = 0, den = 0;
+    };
+    static Common common(const Note& low, const Note& high) {
+        Common c;
+        auto rl = low.pitch.ratio(), rh = high.pitch.ratio();
+        if (!rl || !rh || !rl->is_small() || !rh->is_small()) return c;
+        const std::int64_t g = std::gcd(rl->den(), rh->den());
+        const i128 d = i128(rl->den() / g) * rh->den();
+        const i128 a = i128(rl->num()) * (d / rl->den()), b = i128(rh->num()) * (d / rh->den());
+        if (fits64(d) && fits64(a) && fits64(b)) c = {std::int64_t(a), std::int64_t(b), std::int64_t(d)};
+        return c;
+    }
+    static std::int64_t common_denominator(const Note& low, const Note& high) { return common(low, high).den; }
+
+    // Calls f(ToneValue) for every tone of the dyad that counts in the fit, computed as the
+    // engine computes it: for rational notes over a common denominator (the sign decided
+    // exactly, cents from the exact ratio in double), otherwise in floating point with the
+    // engine's rule that a tone below 1e-9 of its parts is zero; weighted by fit_weight.
+    // With `floored` false the pitch floor is not applied (the caller applies it per copy).
+    template <class F>
+    void each_tone(const Note& low, const Note& high, bool floored, F&& f) const {
+        const FitOptions unfloored;
+        const FitOptions& fit_options = floored ? o_.fit : unfloored;
+        const double fl = low.hz, fh = high.hz, ref = kb_.ref_hz();
+        const Common c = o_.tones.exact ? common(low, high) : Common{};
+        const bool small = c.den != 0;
+        for (int i = 1; i <= o_.tones.partials; ++i)
+            for (int j = 1; j <= o_.tones.partials; ++j)
+                for (const CombinationTerm& t : terms_) {
+                    ToneValue v;
+                    v.term = &t;
+                    v.a = std::int64_t(t.a) * i;
+                    v.b = std::int64_t(t.b) * j;
+                    v.small = small;
+                    double r = 0.0;
+                    if (small) {
+                        v.n = i128(v.a) * c.nl + i128(v.b) * c.nh;
+                        if (v.n <= 0) continue;
+                        // (an int64 conversion where it fits: the same double, no library call)
+                        r = (fits64(v.n) ? double(std::int64_t(v.n)) : double(v.n)) / double(c.den);
+                        v.hz = ref * r;
+                    } else {
+                        v.n = 0;
+                        v.hz = v.a * fl + v.b * fh;
+                        if (v.hz <= 1e-9 * (std::abs(v.a) * fl + std::abs(v.b) * fh)) continue;
+                    }
+                    v.audibility = audibility(t, fl, fh, i, j);
+                    v.weight = fit_weight(t, v.audibility, v.hz, fit_options);
+                    if (v.weight <= 0.0) continue;
+                    v.cents = small ? 1200.0 * std::log2(r) : 1200.0 * std::log2(v.hz / ref);
+                    f(v);
+                }
+    }
+
     // Calls f for each counted tone whose place in the period lies in [low, high], a range
     // that may reach past either end of the period (it wraps).
     template <class F>
@@ -308,71 +423,44 @@ private:
         return tone == candidate * kb_.scale().period().ratio()->pow(period);
     }
 
-    // The counted tones of one new dyad (the new note `c` and `other`), landed on the grown
-    // keyboard: the base keyboard's nearest note, or the new note when it is nearer. Tones are
-    // computed as the engine computes them: for rational notes over a common denominator (the
-    // sign decided exactly, cents from the exact ratio in double), otherwise in floating point
-    // with the engine's rule that a tone below 1e-9 of its parts is zero.
-    void dyad(const Note& c, const Note& other, const Pitch& candidate, const std::optional<Ratio>& ratio,
-              Score& s) const {
+    // The counted tones of one new dyad (the new note `c` and `other`) and of its copies
+    // `shifts` periods up, landed on the grown keyboard: the scale's nearest note, or the new
+    // note when it is nearer.
+    void new_dyad(const Note& c, const Note& other, const std::vector<int>& shifts, const Pitch& candidate,
+                  const std::optional<Ratio>& ratio, Score& s) const {
         if (c.cents == other.cents) return; // a unison is no dyad
         const Note& low = c.cents < other.cents ? c : other;
         const Note& high = c.cents < other.cents ? other : c;
-        const double fl = low.hz, fh = high.hz, ref = kb_.ref_hz();
-        const double x = candidate.cents();
-
-        bool small = false;
-        std::int64_t nl = 0, nh = 0, den = 1;
-        if (o_.tones.exact && ratio) {
-            auto rl = low.pitch.ratio(), rh = high.pitch.ratio();
-            if (rl && rh && rl->is_small() && rh->is_small()) {
-                const std::int64_t g = std::gcd(rl->den(), rh->den());
-                const i128 d = i128(rl->den() / g) * rh->den();
-                const i128 a = i128(rl->num()) * (d / rl->den()), b = i128(rh->num()) * (d / rh->den());
-                if (fits64(d) && fits64(a) && fits64(b)) {
-                    small = true;
-                    nl = std::int64_t(a);
-                    nh = std::int64_t(b);
-                    den = std::int64_t(d);
+        const double x = candidate.cents(), period = kb_.period_cents();
+        std::int64_t den = 0;
+        each_tone(low, high, false, [&](const ToneValue& t) {
+            for (int p : shifts) {
+                const double hz = t.hz * shift_factors_[std::size_t(p)];
+                const double w = fit_weight(*t.term, t.audibility, hz, o_.fit);
+                if (w <= 0.0) continue;
+                const double cents = t.cents + p * period;
+                CandidateLanding cl;
+                const double base = nearest_(cents, x, cl);
+                if (!takes_landing(cl.deviation, base)) {
+                    s.delta.add(w, base, hz);
+                    continue;
                 }
-            }
-        }
-
-        for (int i = 1; i <= o_.tones.partials; ++i)
-            for (int j = 1; j <= o_.tones.partials; ++j)
-                for (const CombinationTerm& t : terms_) {
-                    const std::int64_t A = std::int64_t(t.a) * i, B = std::int64_t(t.b) * j;
-                    double hz, r = 0.0;
-                    i128 n = 0;
-                    if (small) {
-                        n = i128(A) * nl + i128(B) * nh;
-                        if (n <= 0) continue;
-                        // (an int64 conversion where it fits: the same double, no library call)
-                        r = (fits64(n) ? double(std::int64_t(n)) : double(n)) / double(den);
-                        hz = ref * r;
+                bool exact = false;
+                if (std::fabs(cl.deviation) <= exact_check_cents) {
+                    // The copy equals the new note k periods up when the tone in period 0
+                    // equals it k - p periods up.
+                    if (t.small && ratio && fits64(t.n)) {
+                        if (den == 0) den = common_denominator(low, high);
+                        exact = equals_note_ratio(Ratio(std::int64_t(t.n), den), *ratio, cl.period - p);
                     } else {
-                        hz = A * fl + B * fh;
-                        if (hz <= 1e-9 * (std::abs(A) * fl + std::abs(B) * fh)) continue;
+                        exact = equals_candidate_note(kb_, exact_tone(low, high, t.a, t.b), candidate, cl.period - p);
                     }
-                    const double w = fit_weight(t, audibility(t, fl, fh, i, j), hz, o_.fit);
-                    if (w <= 0.0) continue;
-                    const double cents = small ? 1200.0 * std::log2(r) : 1200.0 * std::log2(hz / ref);
-                    CandidateLanding cl;
-                    const double base = nearest_(cents, x, cl);
-                    if (!takes_landing(cl.deviation, base)) {
-                        s.delta.add(w, base, hz);
-                        continue;
-                    }
-                    bool exact = false;
-                    if (std::fabs(cl.deviation) <= exact_check_cents) {
-                        exact = small && fits64(n)
-                                    ? equals_note_ratio(Ratio(std::int64_t(n), den), *ratio, cl.period)
-                                    : equals_candidate_note(kb_, exact_tone(low, high, A, B), candidate, cl.period);
-                        if (exact) cl.deviation = 0.0;
-                    }
-                    s.delta.add(w, cl.deviation, hz);
-                    note_landing(s, cl.deviation, hz, exact);
+                    if (exact) cl.deviation = 0.0;
                 }
+                s.delta.add(w, cl.deviation, hz);
+                note_landing(s, cl.deviation, hz, exact);
+            }
+        });
     }
 
     static constexpr int cached_periods = 64;
@@ -381,13 +469,22 @@ private:
     const SuggestOptions& o_;
     std::vector<CombinationTerm> terms_;
     NearestDeviation nearest_;
-    std::vector<DyadTones> dyads_;
-    std::vector<Counted> counted_; // by place in the period
-    double widest_ = 0.0;          // largest |deviation| among them
+    std::vector<std::pair<Note, Note>> dyads_; // the existing dyads, low note first
+    std::vector<Counted> counted_;             // by place in the period
+    double widest_ = 0.0;                      // largest |deviation| among them
     Sums base_;
-    Fit base_fit_;
+    std::size_t base_tones_ = 0;
     int power_offset_ = 0;
     std::vector<Ratio> period_powers_; // period^k for k = -power_offset_ ..., when rational
+    // The keyboard's notes as partners of the new note in period 0: each note (degree d,
+    // period q) of the keyboard meets the new note of period p as (d, q - p) meets period 0.
+    struct Group {
+        Note partner;            // (d, q - p)
+        std::vector<int> shifts; // every such p
+    };
+    std::vector<Group> groups_;
+    std::vector<std::vector<int>> own_shifts_; // [rel]: the p with p + rel < span
+    std::vector<double> shift_factors_;        // period^p as a frequency factor, p < span
 };
 
 std::vector<DyadTones> tones_for(const Keyboard& kb, const SuggestOptions& o) {
@@ -419,7 +516,8 @@ Suggestions suggest(const Keyboard& keyboard, const std::vector<Pitch>& candidat
     check_fit_options(options.fit);
     Grower grower(keyboard, options);
     Suggestions out;
-    out.base = grower.base_fit();
+    out.base_fit = grower.base_fit();
+    out.base_tones = grower.base_tones();
     for (const Pitch& c : new_candidates(keyboard, candidates)) out.add.push_back(grower.score(c));
     std::stable_sort(out.add.begin(), out.add.end(), [](const Addition& a, const Addition& b) {
         return a.fit != b.fit ? a.fit < b.fit : a.pitch.cents() < b.pitch.cents();
@@ -430,7 +528,7 @@ Suggestions suggest(const Keyboard& keyboard, const std::vector<Pitch>& candidat
             Removal r;
             r.degree = int(d);
             r.fit = fit(tones_for(kb, options), options.fit).rms_cents;
-            r.gain = out.base.rms_cents - r.fit;
+            r.gain = out.base_fit - r.fit;
             out.remove.push_back(r);
         }
         std::stable_sort(out.remove.begin(), out.remove.end(), [](const Removal& a, const Removal& b) {

@@ -47,7 +47,8 @@ struct Removal {
 };
 
 struct Suggestions {
-    Fit base;                    ///< the scale as it is
+    double base_fit = 0.0;       ///< the scale's own fit (rms_cents)
+    std::size_t base_tones = 0;  ///< the tones that count in it
     std::vector<Addition> add;   ///< best first (lowest fit; equal fits by pitch)
     std::vector<Removal> remove; ///< best first (lowest fit; equal fits by degree)
 };

@@ -50,7 +50,7 @@ json suggest_json(const SuggestReport& r) {
         const Removal& m = s.remove[i];
         remove.push_back({{"degree", m.degree}, {"fit", m.fit}, {"gain", m.gain}});
     }
-    return {{"fit", s.base.rms_cents},
+    return {{"fit", s.base_fit},
             {"order", r.options.tones.order},
             {"span", r.keyboard->span()},
             {"partials", r.options.tones.partials},
@@ -65,7 +65,7 @@ json suggest_json(const SuggestReport& r) {
 void write_suggest_text(std::ostream& out, const SuggestReport& r) {
     const Suggestions& s = r.results;
     const double floor = r.options.fit.pitch_floor_hz;
-    out << "fit of the scale: " << fixed(s.base.rms_cents, 3) << " c over " << s.base.tones
+    out << "fit of the scale: " << fixed(s.base_fit, 3) << " c over " << s.base_tones
         << " tones (" << what_is_fitted(r) << ", order " << r.options.tones.order << ", span "
         << r.keyboard->span() << (r.options.tones.partials > 1 ? ", partials " + std::to_string(r.options.tones.partials) : "")
         << ")\n";
