@@ -1,7 +1,7 @@
 #include <iostream>
 
 #include "cli/commands.hpp"
-#include "core/analysis/report.hpp"
+#include "core/report/resultants_report.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {
@@ -27,7 +27,7 @@ void add_resultants(CLI::App& app) {
     cmd->add_option("--partials", a->partials, "Harmonics per note, 1 to 32 (default 1: pure tones)");
     cmd->add_option("--pitch-floor", a->pitch_floor, "Leave tones below this many Hz out of the fit (default 0: count every tone; 20 is the lower limit of pitch perception)");
     auto* chord = cmd->add_option("--chord", a->chord, "A chord instead of every dyad: degree numbers or ratios, e.g. 0,4,7 or 1/1,5/4,3/2");
-    auto* json = cmd->add_flag("--json", a->json, "Print one JSON object (keys documented in the README)");
+    auto* json = cmd->add_flag("--json", a->json, "Print one JSON object (keys listed in docs/formats.md)");
     auto* csv = cmd->add_flag("--csv", a->csv, "Print one CSV row per tone");
     json->excludes(csv);
     cmd->callback([a, chord] {
