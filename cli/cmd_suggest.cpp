@@ -3,7 +3,7 @@
 #include "cli/commands.hpp"
 #include "core/analysis/candidates.hpp"
 #include "core/analysis/chord.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "core/report/suggest_report.hpp"
 #include "core/tuning/load.hpp"
 

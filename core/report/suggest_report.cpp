@@ -2,8 +2,8 @@
 
 #include <algorithm>
 
-#include "core/io/format.hpp"
-#include "core/io/table.hpp"
+#include "core/format.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo {
 

@@ -11,7 +11,7 @@
 #include "core/analysis/candidates.hpp"
 #include "core/analysis/chord.hpp"
 #include "core/analysis/suggest.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/load.hpp"
 #include "tests/analysis/test_tunings.hpp"
 #include "tests/support/run.hpp"
