@@ -16,6 +16,7 @@ void add_resultants(CLI::App& app) {
         int span = 1;
         int order = 3;
         int partials = 1;
+        double pitch_floor = 0.0;
         std::string chord;
         bool json = false, csv = false;
     };
@@ -25,6 +26,7 @@ void add_resultants(CLI::App& app) {
     cmd->add_option("--span", a->span, "Periods the keyboard spans, 1 to 11 (default 1)");
     cmd->add_option("--order", a->order, "Highest order |a|+|b| of a term, 2 to 12 (default 3)");
     cmd->add_option("--partials", a->partials, "Harmonics per note, 1 to 32 (default 1: pure tones)");
+    cmd->add_option("--pitch-floor", a->pitch_floor, "Leave tones below this many Hz out of the fit (default 0: count every tone; 20 is the lower limit of pitch perception)");
     auto* chord = cmd->add_option("--chord", a->chord, "A chord instead of every dyad: degree numbers or ratios, e.g. 0,4,7 or 1/1,5/4,3/2");
     auto* json = cmd->add_flag("--json", a->json, "Print one JSON object (keys listed in docs/formats.md)");
     auto* csv = cmd->add_flag("--csv", a->csv, "Print one CSV row per tone");
@@ -35,6 +37,9 @@ void add_resultants(CLI::App& app) {
         opt.order = a->order;
         opt.partials = a->partials;
         check_options(opt);
+        FitOptions fit_options;
+        fit_options.pitch_floor_hz = a->pitch_floor;
+        check_fit_options(fit_options);
         Scale scale = load_tuning(a->tuning);
         note_description(scale, a->tuning);
         if (!a->json && !a->csv && !is_printable(scale.description())) // the text goes to a terminal
@@ -51,7 +56,7 @@ void add_resultants(CLI::App& app) {
         } else {
             r.dyads = keyboard_tones(kb, opt);
         }
-        r.fit = fit(r.dyads);
+        r.fit = fit(r.dyads, fit_options);
         // Everything that can fail has run; the report is written straight out, dyad by dyad,
         // so up to max_tones tones never need a second copy as one string or JSON tree.
         if (a->json)

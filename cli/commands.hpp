@@ -25,5 +25,6 @@ void add_compare(CLI::App& app);
 void add_render(CLI::App& app);
 void add_export(CLI::App& app);
 void add_measure(CLI::App& app);
+void add_suggest(CLI::App& app);
 
 } // namespace terzo::cli

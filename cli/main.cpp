@@ -19,6 +19,7 @@ int main(int argc, char** argv) {
     terzo::cli::add_render(app);
     terzo::cli::add_export(app);
     terzo::cli::add_measure(app);
+    terzo::cli::add_suggest(app);
     try {
         app.parse(argc, argv);
     } catch (const terzo::cli::ExitStatus& e) {

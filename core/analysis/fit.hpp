@@ -10,6 +10,18 @@
 
 namespace terzo {
 
+/// The lower limit of pitch perception: tones below about 20 Hz are not heard as a pitch but,
+/// at most, as beating or pressure (common practice, no source; ISO 7196:1995 calls sound
+/// below 20 Hz infrasound and ISO 226:2003's equal-loudness contours start at 20 Hz, both
+/// from memory). The fit leaves such tones out when asked to (FitOptions::pitch_floor_hz).
+inline constexpr double pitch_perception_floor_hz = 20.0;
+
+struct FitOptions {
+    /// Tones below this frequency (Hz) get weight 0. 0 counts every tone (the default of
+    /// `terzo resultants` and of every caller that does not ask).
+    double pitch_floor_hz = 0.0;
+};
+
 struct Fit {
     double rms_cents = 0.0;   ///< sqrt(sum w*d^2 / sum w); 0 when no tone has weight
     double total_weight = 0.0;
@@ -17,10 +29,20 @@ struct Fit {
     std::size_t exact = 0;    ///< of those, landings proven exact
 };
 
-/// Weight of one tone: its audibility estimate divided by (order - 1), so higher orders count less.
-double fit_weight(const Tone& tone);
+/// Weight of a tone of `term` at `hz` with audibility estimate `audibility`: the estimate
+/// divided by (order - 1), so higher orders count less; 0 below options.pitch_floor_hz.
+inline double fit_weight(const CombinationTerm& term, double audibility, double hz,
+                         const FitOptions& options = {}) {
+    if (hz < options.pitch_floor_hz) return 0.0;
+    return audibility / (term.order() - 1);
+}
+/// The same for one computed tone.
+double fit_weight(const Tone& tone, const FitOptions& options = {});
 
 /// The fit over a set of dyads (every dyad of a keyboard, or the pairs of a chord).
-Fit fit(const std::vector<DyadTones>& dyads);
+Fit fit(const std::vector<DyadTones>& dyads, const FitOptions& options = {});
+
+/// Throws InputError naming "--pitch-floor" unless 0 <= pitch_floor_hz <= 20000 Hz.
+void check_fit_options(const FitOptions& options);
 
 } // namespace terzo

@@ -43,3 +43,36 @@ TEST_CASE("a just triad fits better than the 12-TET triad", "[fit]") {
     CHECK(j.exact > 0);
     CHECK(t.exact == 0);
 }
+
+TEST_CASE("a pitch floor leaves the tones below it out of the fit", "[fit]") {
+    DyadTones d;
+    Tone low, high;
+    low.term = {-1, 1}; // a difference tone of a few hertz
+    low.audibility = 0.5;
+    low.hz = 4.0;
+    low.landing.deviation_cents = 80.0;
+    high.term = {-1, 1};
+    high.audibility = 0.5;
+    high.hz = 130.0;
+    high.landing.deviation_cents = 10.0;
+    d.tones = {low, high};
+    // Without a floor both count: sqrt((0.5 * 6400 + 0.5 * 100) / 1) (arithmetic).
+    CHECK_THAT(fit({d}).rms_cents, WithinAbs(std::sqrt(3250.0), 1e-12));
+    FitOptions floor;
+    floor.pitch_floor_hz = pitch_perception_floor_hz;
+    CHECK(fit_weight(low, floor) == 0.0);
+    CHECK(fit_weight(high, floor) == 0.5);
+    const Fit f = fit({d}, floor);
+    CHECK(f.tones == 1);
+    CHECK(f.rms_cents == 10.0);
+    SECTION("a tone exactly at the floor counts") {
+        high.hz = 20.0;
+        CHECK(fit_weight(high, floor) == 0.5);
+    }
+    SECTION("a floor outside 0 to 20000 Hz is refused") {
+        floor.pitch_floor_hz = -1.0;
+        CHECK_THROWS_WITH(check_fit_options(floor), "--pitch-floor: error: pitch floor -1 Hz is outside the allowed range 0 to 20000 Hz");
+        floor.pitch_floor_hz = 20001.0;
+        CHECK_THROWS_WITH(check_fit_options(floor), "--pitch-floor: error: pitch floor 20001 Hz is outside the allowed range 0 to 20000 Hz");
+    }
+}
