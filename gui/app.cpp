@@ -129,7 +129,7 @@ void poll_background(App& app) {
             r.generation = generation;
             auto t0 = std::chrono::steady_clock::now();
             try {
-                r.fit = fit(keyboard_tones(kb, options));
+                r.fit = keyboard_fit(kb, options);
             } catch (const InputError& e) {
                 r.error = e.what();
             }
@@ -184,9 +184,10 @@ void refresh(App& app) {
             a.selection_tones = chord_tones(kb, chord, options);
             for (const DyadTones& d : a.selection_tones) {
                 std::vector<LatticePlace> places;
+                const DyadExact exact(d.low, d.high);
                 for (const Tone& tone : d.tones)
                     places.push_back(place_on_lattice(
-                        tone.exact_value().value_or(Pitch::from_cents(tone.cents)), lattice_options(s)));
+                        exact.value(tone).value_or(Pitch::from_cents(tone.cents)), lattice_options(s)));
                 a.tone_places.push_back(std::move(places));
             }
             a.selection_fit = fit(a.selection_tones);

@@ -20,7 +20,21 @@ struct Fit {
 /// Weight of one tone: its audibility estimate divided by (order - 1), so higher orders count less.
 double fit_weight(const Tone& tone);
 
+/// The fit summed dyad by dyad, for tones that are not kept.
+class FitSum {
+public:
+    void add(const DyadTones& dyad);
+    Fit result() const;
+
+private:
+    Fit fit_;
+    double sum_ = 0.0; // sum of w*d^2
+};
+
 /// The fit over a set of dyads (every dyad of a keyboard, or the pairs of a chord).
 Fit fit(const std::vector<DyadTones>& dyads);
+
+/// The fit of every dyad of the keyboard, computed dyad by dyad without keeping the tones.
+Fit keyboard_fit(const Keyboard& keyboard, const ToneOptions& options);
 
 } // namespace terzo

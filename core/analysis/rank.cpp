@@ -107,7 +107,7 @@ double measure_tuning(const Scale& scale, RankMetric metric, const std::string& 
         // The fit as `terzo resultants` prints it: every dyad of one period from the default
         // reference, default tone options.
         Keyboard kb(scale);
-        return fit(keyboard_tones(kb, ToneOptions{})).rms_cents;
+        return keyboard_fit(kb, ToneOptions{}).rms_cents;
     }
     if (scale.size() == 12 && scale.period() == Pitch::from_ratio(Ratio(2))) {
         // The same figures as the key comparison's summary (cost_test.cpp checks that they
