@@ -1,8 +1,9 @@
 #include "core/report/json_stream.hpp"
 
 #include <cmath>
-#include <iterator>
+#include <cstring>
 
+#include <fmt/compile.h>
 #include <fmt/format.h>
 
 #include "core/error.hpp"
@@ -12,25 +13,48 @@ namespace terzo {
 namespace {
 
 // Bytes gathered before each write to the stream: large enough that the stream's own cost
-// per call vanishes, small enough that memory stays flat.
+// per call vanishes, small enough that memory stays flat. `slack` is the most one piece of
+// output (a number, an escaped character, an indent step) may need at once.
 constexpr std::size_t flush_bytes = 1 << 16;
+constexpr std::size_t slack = 256;
+
+bool plain(char ch) {
+    const auto c = static_cast<unsigned char>(ch);
+    return c >= 0x20 && c != '"' && c != '\\';
+}
 
 } // namespace
 
-JsonStream::JsonStream(std::ostream& out, bool pretty) : out_(out), pretty_(pretty) {
-    buf_.reserve(flush_bytes + 4096);
-}
+JsonStream::JsonStream(std::ostream& out, bool pretty)
+    : out_(out), pretty_(pretty), buf_(new char[flush_bytes + slack]), pos_(buf_.get()),
+      end_(buf_.get() + flush_bytes + slack) {}
 
 JsonStream::~JsonStream() { flush(); }
 
 void JsonStream::flush() {
-    out_.write(buf_.data(), std::streamsize(buf_.size()));
-    buf_.clear();
+    out_.write(buf_.get(), std::streamsize(pos_ - buf_.get()));
+    pos_ = buf_.get();
+}
+
+char* JsonStream::room(std::size_t n) {
+    TERZO_ASSERT(n <= slack);
+    if (std::size_t(end_ - pos_) < n) flush();
+    return pos_;
+}
+
+void JsonStream::put(std::string_view s) {
+    while (!s.empty()) {
+        if (pos_ == end_) flush();
+        const std::size_t n = std::min(s.size(), std::size_t(end_ - pos_));
+        std::memcpy(pos_, s.data(), n);
+        pos_ += n;
+        s.remove_prefix(n);
+    }
 }
 
 void JsonStream::newline_indent() {
-    buf_ += '\n';
-    buf_.append(2 * has_items_.size(), ' ');
+    put("\n");
+    for (std::size_t i = 0; i < has_items_.size(); ++i) put("  ");
 }
 
 void JsonStream::before_value() {
@@ -39,16 +63,16 @@ void JsonStream::before_value() {
         return;
     }
     if (!has_items_.empty()) {
-        if (has_items_.back()) buf_ += ',';
+        if (has_items_.back()) put(",");
         has_items_.back() = true;
         if (pretty_) newline_indent();
     }
-    if (buf_.size() >= flush_bytes) flush();
+    if (std::size_t(pos_ - buf_.get()) >= flush_bytes) flush();
 }
 
 void JsonStream::open(char c) {
     before_value();
-    buf_ += c;
+    put(std::string_view(&c, 1));
     has_items_.push_back(false);
 }
 
@@ -57,9 +81,9 @@ void JsonStream::close(char c) {
     const bool items = has_items_.back();
     has_items_.pop_back();
     if (pretty_ && items) newline_indent();
-    buf_ += c;
+    put(std::string_view(&c, 1));
     if (has_items_.empty()) { // the document is complete
-        buf_ += '\n';
+        put("\n");
         flush();
     }
 }
@@ -72,75 +96,65 @@ void JsonStream::end_array() { close(']'); }
 void JsonStream::key(std::string_view name) {
     TERZO_ASSERT(!after_key_);
     value(name);
-    buf_ += pretty_ ? ": " : ":";
+    put(pretty_ ? ": " : ":");
     after_key_ = true;
 }
 
 void JsonStream::value(std::string_view text) {
     before_value();
-    buf_ += '"';
-    // Most text (every key, names, ratios) needs no escape: copy it whole.
-    auto plain = [](char ch) {
-        const auto c = static_cast<unsigned char>(ch);
-        return c >= 0x20 && c != '"' && c != '\\';
-    };
-    std::size_t i = 0;
-    while (i < text.size() && plain(text[i])) ++i;
-    buf_.append(text.data(), i);
-    for (; i < text.size(); ++i) {
-        const char ch = text[i];
-        const auto c = static_cast<unsigned char>(ch);
+    put("\"");
+    // Most text (every key, names, ratios) needs no escape: copied in runs.
+    while (!text.empty()) {
+        std::size_t i = 0;
+        while (i < text.size() && plain(text[i])) ++i;
+        put(text.substr(0, i));
+        if (i == text.size()) break;
+        const auto c = static_cast<unsigned char>(text[i]);
         switch (c) {
-        case '"': buf_ += "\\\""; break;
-        case '\\': buf_ += "\\\\"; break;
-        case '\b': buf_ += "\\b"; break;
-        case '\f': buf_ += "\\f"; break;
-        case '\n': buf_ += "\\n"; break;
-        case '\r': buf_ += "\\r"; break;
-        case '\t': buf_ += "\\t"; break;
-        default:
-            if (c < 0x20)
-                fmt::format_to(std::back_inserter(buf_), "\\u{:04x}", unsigned(c));
-            else
-                buf_ += ch;
+        case '"': put("\\\""); break;
+        case '\\': put("\\\\"); break;
+        case '\b': put("\\b"); break;
+        case '\f': put("\\f"); break;
+        case '\n': put("\\n"); break;
+        case '\r': put("\\r"); break;
+        case '\t': put("\\t"); break;
+        default: pos_ = fmt::format_to(room(8), FMT_COMPILE("\\u{:04x}"), unsigned(c)); break;
         }
+        text.remove_prefix(i + 1);
     }
-    buf_ += '"';
+    put("\"");
 }
 
 void JsonStream::value(double number) {
     before_value();
     if (!std::isfinite(number)) {
-        buf_ += "null";
+        put("null");
         return;
     }
-    char text[32];
-    const std::size_t n = std::size_t(fmt::format_to_n(text, sizeof text, "{}", number).size);
-    buf_.append(text, n);
+    char* start = room(40);
+    pos_ = fmt::format_to(start, FMT_COMPILE("{}"), number);
     // Whole numbers keep a decimal point, so a reader sees a floating-point value.
-    if (std::string_view(text, n).find_first_of(".en") == std::string_view::npos) buf_ += ".0";
+    if (std::string_view(start, std::size_t(pos_ - start)).find_first_of(".e") == std::string_view::npos) put(".0");
 }
 
 void JsonStream::value(std::int64_t number) {
     before_value();
-    const fmt::format_int text(number);
-    buf_.append(text.data(), text.size());
+    pos_ = fmt::format_to(room(24), FMT_COMPILE("{}"), number);
 }
 
 void JsonStream::value(std::size_t number) {
     before_value();
-    const fmt::format_int text(number);
-    buf_.append(text.data(), text.size());
+    pos_ = fmt::format_to(room(24), FMT_COMPILE("{}"), number);
 }
 
 void JsonStream::value(bool b) {
     before_value();
-    buf_ += b ? "true" : "false";
+    put(b ? "true" : "false");
 }
 
 void JsonStream::null() {
     before_value();
-    buf_ += "null";
+    put("null");
 }
 
 } // namespace terzo

@@ -5,6 +5,7 @@
 #pragma once
 
 #include <cstdint>
+#include <memory>
 #include <ostream>
 #include <string>
 #include <string_view>
@@ -45,12 +46,17 @@ private:
     void open(char c);
     void close(char c);
     void newline_indent();
+    /// At least n free bytes at pos_ (flushing first if needed); n <= slack.
+    char* room(std::size_t n);
+    void put(std::string_view s);
 
     std::ostream& out_;
     bool pretty_;
     bool after_key_ = false;
-    std::vector<bool> has_items_; // per open container
-    std::string buf_;
+    std::vector<char> has_items_; // per open container: has it an item yet
+    std::unique_ptr<char[]> buf_;
+    char* pos_;
+    char* end_;
 };
 
 } // namespace terzo

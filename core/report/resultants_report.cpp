@@ -2,6 +2,7 @@
 
 #include <iterator>
 
+#include <fmt/compile.h>
 #include <fmt/format.h>
 
 #include "core/io/format.hpp"
@@ -42,7 +43,7 @@ bool ratio_text(const DyadExact& exact, const Tone& tone, std::string& buf) {
     if (tone.exact != ExactKind::ratio) return false;
     const Ratio r = *exact.ratio(tone);
     if (r.is_small())
-        fmt::format_to(std::back_inserter(buf), "{}/{}", r.num(), r.den());
+        fmt::format_to(std::back_inserter(buf), FMT_COMPILE("{}/{}"), r.num(), r.den());
     else
         buf = r.str();
     return true;
