@@ -32,6 +32,9 @@ Ratio::Big to_big(i128 v) {
 // and far below any musically meaningful difference. It only decides where exact
 // arithmetic is consulted: the decision itself is always exact.
 constexpr double exact_path_error_cents = 1e-7;
+// The tempered fast path's cents (the low note's cents plus a logarithm) err by far less than
+// this; closer tones take the exact path of landing(Keyboard, Pitch).
+constexpr double tempered_error_cents = 1e-6;
 
 Ratio make_ratio(i128 num, std::int64_t den) {
     if (fits64(num)) return Ratio(std::int64_t(num), den);
@@ -286,6 +289,28 @@ void ResultantEngine::tones(const Note& low, const Note& high, std::vector<Tone>
                         break;
                     }
                     case Plan::tempered: {
+                        // The tone is f_low * m with m = A + B*q rational. With q in 64 bits, m's
+                        // sign and size come from one 128-bit sum and floating point finds the
+                        // nearest note; the exact value (a prime vector) is built only when the
+                        // tone is within rounding error of a note. It is never rational: f_low
+                        // is not (else both notes would be, and the plan rational).
+                        if (plan.q.is_small()) {
+                            const i128 mn = i128(A) * plan.q.den() + i128(B) * plan.q.num();
+                            if (mn <= 0) continue;
+                            if (fits64(mn)) {
+                                const double c = low.cents + 1200.0 * std::log2(double(std::int64_t(mn)) /
+                                                                                double(plan.q.den()));
+                                const NoteFinder::Around a = tb.finder.around(c);
+                                if (std::fabs(a.nearer.deviation_cents) > tempered_error_cents &&
+                                    std::fabs(a.other.deviation_cents) > tempered_error_cents) {
+                                    tone.cents = c;
+                                    tone.hz = ref * std::exp2(c / 1200.0);
+                                    tone.landing = a.nearer;
+                                    tone.exact = ExactKind::vector;
+                                    break;
+                                }
+                            }
+                        }
                         Ratio m = tempered_multiplier(plan, A, B);
                         if (m.sign() <= 0) continue;
                         if (!m.is_small()) { // not factorable cheaply: fall back to floating point

@@ -99,6 +99,13 @@ NoteFinder::NoteFinder(const Keyboard& keyboard) : period_(keyboard.period_cents
         return Side{e.cents_in_period, e.degree, step - e.shift, step};
     };
     for (const auto& e : sorted) cuts_.push_back(e.cents_in_period);
+    // Eight slices per degree: the search starts at its slice's upper bound and corrects it
+    // by a step or two (the result is exactly std::upper_bound's, the slices only guess).
+    const std::size_t slices = 8 * n;
+    buckets_per_cent_ = double(slices) / period_;
+    for (std::size_t b = 0; b < slices; ++b)
+        bucket_.push_back(std::size_t(std::upper_bound(cuts_.begin(), cuts_.end(), double(b) / buckets_per_cent_) -
+                                      cuts_.begin()));
     // The same neighbours as neighbours() above, for every upper bound lo = 0..n.
     for (std::size_t lo = 0; lo <= n; ++lo) {
         below_.push_back(lo > 0 ? side(first[lo - 1], 0) : side(first[n - 1], -1));
@@ -113,7 +120,10 @@ NoteFinder::Around NoteFinder::around(double cents) const {
         in -= period_;
         ++p;
     }
-    const std::size_t lo = std::size_t(std::upper_bound(cuts_.begin(), cuts_.end(), in) - cuts_.begin());
+    // The upper bound of `in` in cuts_: the first entry strictly above it.
+    std::size_t lo = bucket_[std::min(bucket_.size() - 1, std::size_t(std::max(0.0, in * buckets_per_cent_)))];
+    while (lo > 0 && cuts_[lo - 1] > in) --lo;
+    while (lo < cuts_.size() && cuts_[lo] <= in) ++lo;
     // Written as neighbours() computes it, so both give the same bits.
     auto landing_of = [&](const Side& s) {
         Landing l;

@@ -55,6 +55,8 @@ private:
     };
     double period_;
     std::vector<double> cuts_;              // sorted cents inside the period
+    std::vector<std::size_t> bucket_;       // a guess of the upper bound per slice of the period
+    double buckets_per_cent_;
     std::vector<Side> below_, above_;       // indexed by the upper bound of `in` in cuts_
 };
 

@@ -95,8 +95,10 @@ void JsonStream::end_array() { close(']'); }
 
 void JsonStream::key(std::string_view name) {
     TERZO_ASSERT(!after_key_);
-    value(name);
-    put(pretty_ ? ": " : ":");
+    before_value();
+    put("\"");
+    put(name); // keys are our own names: nothing to escape
+    put(pretty_ ? "\": " : "\":");
     after_key_ = true;
 }
 

@@ -26,7 +26,7 @@ public:
     void end_object();
     void begin_array();
     void end_array();
-    /// The key of the next value in the current object.
+    /// The key of the next value in the current object (a name of ours: written unescaped).
     void key(std::string_view name);
 
     void value(std::string_view text); ///< a string, escaped
