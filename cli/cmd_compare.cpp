@@ -3,8 +3,8 @@
 
 #include "cli/commands.hpp"
 #include "cli/report_output.hpp"
-#include "core/io/compare_report.hpp"
-#include "core/io/format.hpp"
+#include "core/report/compare_report.hpp"
+#include "core/format.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {
@@ -31,7 +31,7 @@ void add_compare(CLI::App& app) {
     cmd->add_option("--tonic", *tonic, "Note of degree 0 (default C)")->type_name("NOTE");
     cmd->add_option("--octave", *octave, "Octave of the triads' roots, 0..8 (default 4: C4 to B4)")
         ->type_name("N");
-    cmd->add_option("--weights", *weights, "Key usage weights (format in the README)")
+    cmd->add_option("--weights", *weights, "Key usage weights (format in docs/compare.md)")
         ->type_name("FILE");
     cmd->add_option("--odd-limit", *odd_limit,
                     "Odd limit of the simple ratios in interval classes, 1..99 (default 7)")

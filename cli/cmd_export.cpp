@@ -9,10 +9,10 @@
 #include "cli/commands.hpp"
 #include "cli/output_file.hpp"
 #include "core/io/atomic_file.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "core/io/frequency_table.hpp"
 #include "core/io/mts.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/io/smf.hpp"
 #include "core/tuning/load.hpp"
 

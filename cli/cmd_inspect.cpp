@@ -2,7 +2,7 @@
 #include <sstream>
 
 #include "cli/commands.hpp"
-#include "core/io/scale_report.hpp"
+#include "core/report/scale_report.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {
@@ -12,7 +12,7 @@ void add_inspect(CLI::App& app) {
     auto tuning = std::make_shared<std::string>();
     auto json = std::make_shared<bool>(false);
     cmd->add_option("TUNING", *tuning, tuning_help)->required();
-    cmd->add_flag("--json", *json, "Print one JSON object (keys documented in the README)");
+    cmd->add_flag("--json", *json, "Print one JSON object (keys listed in docs/formats.md)");
     cmd->callback([=] {
         Scale scale = load_tuning(*tuning);
         std::ostringstream out;

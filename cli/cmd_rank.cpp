@@ -7,8 +7,8 @@
 #include "cli/commands.hpp"
 #include "cli/interrupt.hpp"
 #include "core/analysis/rank.hpp"
-#include "core/io/format.hpp"
-#include "core/io/table.hpp"
+#include "core/format.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo::cli {
 
@@ -25,7 +25,7 @@ void add_rank(CLI::App& app) {
     cmd->add_option("FILES", a->inputs, ".scl files or folders")->required();
     cmd->add_option("--by", a->by, "metric: " + rank_metric_names() + " (default worst-major-third)");
     cmd->add_option("--threads", a->threads, "threads (default: one per core)");
-    cmd->add_flag("--json", a->json, "print one JSON object (keys in the README)");
+    cmd->add_flag("--json", a->json, "print one JSON object (keys in docs/formats.md)");
     cmd->add_flag("--quiet", a->quiet, "no progress on stderr");
     cmd->add_flag("--list-skipped", a->list_skipped, "name each tuning the metric does not apply to (e.g. not 12 notes)");
     cmd->callback([a] {

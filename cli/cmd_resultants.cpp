@@ -26,7 +26,7 @@ void add_resultants(CLI::App& app) {
     cmd->add_option("--order", a->order, "Highest order |a|+|b| of a term, 2 to 12 (default 3)");
     cmd->add_option("--partials", a->partials, "Harmonics per note, 1 to 32 (default 1: pure tones)");
     auto* chord = cmd->add_option("--chord", a->chord, "A chord instead of every dyad: degree numbers or ratios, e.g. 0,4,7 or 1/1,5/4,3/2");
-    auto* json = cmd->add_flag("--json", a->json, "Print one JSON object, compact (keys in docs/resultants.md)");
+    auto* json = cmd->add_flag("--json", a->json, "Print one JSON object, compact (keys listed in docs/formats.md)");
     auto* pretty = cmd->add_flag("--pretty", a->pretty, "With --json: indent the JSON two spaces per level");
     auto* csv = cmd->add_flag("--csv", a->csv, "Print one CSV row per tone");
     json->excludes(csv);

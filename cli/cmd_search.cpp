@@ -10,9 +10,9 @@
 #include "cli/interrupt.hpp"
 #include "core/analysis/search.hpp"
 #include "core/io/atomic_file.hpp"
-#include "core/io/format.hpp"
-#include "core/io/scl.hpp"
-#include "core/io/table.hpp"
+#include "core/format.hpp"
+#include "core/tuning/scl.hpp"
+#include "core/report/table.hpp"
 #include "core/tuning/temperament.hpp"
 
 namespace terzo::cli {
@@ -421,7 +421,7 @@ void add_search(CLI::App& app) {
     cmd->add_option("--max-steps", a->max_steps, "equal: largest number of steps (default 72)");
     cmd->add_option("--top", a->top, "results to show (default 10, at most 1000)");
     cmd->add_option("--threads", a->threads, "threads (default: one per core)");
-    cmd->add_flag("--json", a->json, "print one JSON object (keys in the README)");
+    cmd->add_flag("--json", a->json, "print one JSON object (keys in docs/formats.md)");
     cmd->add_option("--write-scl", a->write_dir, "also write each result as a .scl file into this folder");
     cmd->add_flag("--force", a->force, "replace existing .scl files");
     cmd->add_flag("--quiet", a->quiet, "no progress on stderr");

@@ -3,8 +3,8 @@
 
 #include "cli/commands.hpp"
 #include "cli/report_output.hpp"
-#include "core/io/format.hpp"
-#include "core/io/sheet_report.hpp"
+#include "core/format.hpp"
+#include "core/report/sheet_report.hpp"
 #include "core/tuning/load.hpp"
 
 namespace terzo::cli {

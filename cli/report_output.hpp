@@ -12,7 +12,7 @@
 
 #include "core/error.hpp"
 #include "core/io/atomic_file.hpp"
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 #include "cli/output_file.hpp"
 
 namespace terzo::cli {
@@ -28,7 +28,7 @@ inline std::shared_ptr<ReportOutput> add_report_options(CLI::App* cmd,
                                                         const std::string& parts_help) {
     auto o = std::make_shared<ReportOutput>();
     auto* json =
-        cmd->add_flag("--json", o->json, "Print one JSON object (keys documented in the README)");
+        cmd->add_flag("--json", o->json, "Print one JSON object (keys listed in docs/formats.md)");
     auto* csv = cmd->add_flag("--csv", o->csv, "Print one table as CSV (choose it with --part)");
     auto* md = cmd->add_flag("--md", o->md, "Print Markdown tables");
     json->excludes(csv)->excludes(md);

@@ -3,7 +3,7 @@
 #include <cmath>
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/recipe.hpp"
 #include "fuzz_target.hpp"
 

@@ -2,7 +2,7 @@
 // that the writer turns into text that reads back to the same scale.
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "fuzz_target.hpp"
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {

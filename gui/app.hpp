@@ -18,7 +18,7 @@
 #include "core/analysis/fit.hpp"
 #include "core/analysis/keyboard.hpp"
 #include "core/analysis/lattice.hpp"
-#include "core/io/compare_report.hpp"
+#include "core/report/compare_report.hpp"
 #include "core/io/session.hpp"
 #include "gui/file_dialog.hpp"
 

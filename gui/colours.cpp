@@ -4,7 +4,7 @@
 #include <cmath>
 #include <string>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo::gui {
 

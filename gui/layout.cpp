@@ -9,9 +9,9 @@
 
 #include "core/error.hpp"
 #include "core/io/atomic_file.hpp"
-#include "core/io/format.hpp"
-#include "core/io/scl.hpp"
-#include "core/io/sheet_report.hpp"
+#include "core/format.hpp"
+#include "core/tuning/scl.hpp"
+#include "core/report/sheet_report.hpp"
 #include "gui/views.hpp"
 
 namespace terzo::gui {

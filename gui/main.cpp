@@ -18,7 +18,7 @@
 
 #include "bench/steal.hpp"
 #include "core/error.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "gui/app.hpp"
 #include "gui/audio.hpp"
 #include "gui/colours.hpp"

@@ -2,7 +2,7 @@
 // the selection's fit and its common resultant bass.
 #include <string>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "gui/colours.hpp"
 #include "gui/views.hpp"
 

@@ -7,7 +7,7 @@
 #include <imgui_stdlib.h>
 
 #include "core/error.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "core/tuning/recipe.hpp"
 #include "gui/views.hpp"
 

@@ -1,7 +1,7 @@
 // Drawing a core Table (the same tables the CLI prints) as an ImGui table.
 #pragma once
 
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo::gui {
 

@@ -4,7 +4,7 @@
 #include <cmath>
 #include <string>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "gui/colours.hpp"
 #include "gui/views.hpp"
 

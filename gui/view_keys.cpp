@@ -1,9 +1,9 @@
 // The keys view: the open tunings compared key by key (from core/analysis/compare.hpp, the
-// tables of core/io/compare_report.hpp): a summary across tunings, wolves, the current
+// tables of core/report/compare_report.hpp): a summary across tunings, wolves, the current
 // tuning's 24 triads, and the interval classes of any tuning.
 #include <filesystem>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "gui/table_view.hpp"
 #include "gui/views.hpp"
 

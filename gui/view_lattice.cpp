@@ -5,7 +5,7 @@
 #include <map>
 #include <string>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "gui/colours.hpp"
 #include "gui/gl_render.hpp"
 #include "gui/views.hpp"

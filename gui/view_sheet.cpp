@@ -1,7 +1,7 @@
 // The sheet view: the tuner's sheet of the current 12-note tuning at the pitch reference
-// (core/analysis/sheet.hpp, tables of core/io/sheet_report.hpp): notes with offsets and beat
+// (core/analysis/sheet.hpp, tables of core/report/sheet_report.hpp): notes with offsets and beat
 // rates, the tuning order, the circle of fifths, and the advice every sheet carries.
-#include "core/io/sheet_report.hpp"
+#include "core/report/sheet_report.hpp"
 #include "gui/table_view.hpp"
 #include "gui/views.hpp"
 

@@ -17,7 +17,7 @@ namespace terzo {
 //    falling linearly to 0 at 1.5, times 1 - (k-1)/6 (0 from k = 7).
 //  - Quadratic difference tone f2-f1: audible only at high primary levels, roughly 50 dB SL
 //    and above (Plomp, JASA 37, 1965, 1110-1123, from memory), where it becomes comparable
-//    with 2f1-f2 (Greenwood 1971-72, as summarised in REFERENCES.md). Estimate: 0.5 at any
+//    with 2f1-f2 (Greenwood 1971-72, as summarised in docs/references.md). Estimate: 0.5 at any
 //    ratio (terzo assumes the loud playing under which resultants are heard at all).
 //  - Summation tone f1+f2: seldom heard (Truax, Handbook for Acoustic Ecology, 1999), much
 //    weaker than difference tones in Helmholtz's model (On the Sensations of Tone, App. XII).

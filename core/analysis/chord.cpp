@@ -5,7 +5,7 @@
 
 #include <boost/multiprecision/cpp_int.hpp>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

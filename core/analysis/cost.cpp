@@ -7,7 +7,7 @@
 #include "core/analysis/chord.hpp"
 #include "core/analysis/fit.hpp"
 #include "core/analysis/keyboard.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

@@ -152,7 +152,7 @@ private:
     std::array<double, 3> total_{};
 };
 
-/// Deviation from pure of each class's Pythagorean form (REFERENCES.md section 1): a major
+/// Deviation from pure of each class's Pythagorean form (docs/references.md section 1): a major
 /// third of four pure fifths is a syntonic comma wide, a minor third of three a comma narrow.
 inline constexpr double syntonic_comma_cents = 21.50628959671478;
 inline constexpr double pythagorean_comma_cents = 23.460010384649014;

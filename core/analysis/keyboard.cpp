@@ -3,7 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

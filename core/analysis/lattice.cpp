@@ -7,7 +7,7 @@
 #include <vector>
 
 #include "core/error.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

@@ -12,7 +12,7 @@
 #include "core/analysis/fit.hpp"
 #include "core/analysis/keyboard.hpp"
 #include "core/analysis/parallel.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 
 namespace terzo {
 

@@ -11,7 +11,7 @@
 #include <thread>
 
 #include "core/analysis/parallel.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "core/tuning/temperament.hpp"
 
 namespace terzo {

@@ -1,6 +1,6 @@
 #include "core/io/frequency_table.hpp"
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "core/io/mts.hpp"
 
 namespace terzo {

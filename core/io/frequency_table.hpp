@@ -5,7 +5,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 #include "core/tuning/key_map.hpp"
 
 namespace terzo {

@@ -5,7 +5,7 @@
 #include <cstdio>
 #include <sstream>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

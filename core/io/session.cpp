@@ -10,8 +10,8 @@
 
 #include "core/error.hpp"
 #include "core/io/atomic_file.hpp"
-#include "core/io/format.hpp"
-#include "core/io/scl.hpp"
+#include "core/format.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/note_names.hpp"
 
 namespace terzo {

@@ -5,7 +5,7 @@
 #include <fmt/compile.h>
 #include <fmt/format.h>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 #include "core/report/json_stream.hpp"
 
 namespace terzo {
@@ -133,7 +133,7 @@ void write_legend(std::ostream& out, const ToneOptions& options) {
            "  -1 the one below it). deviation: tone minus that note in cents. '=' the tone coincides\n"
            "  with the note exactly (proven with exact arithmetic, never by a tolerance).\n"
            "  exact ratio: tone / reference; '-' when not exact. audibility: a rough estimate in\n"
-           "  [0, 1] from published psychoacoustic findings (see the README), not a measurement.\n"
+           "  [0, 1] from published psychoacoustic findings (see docs/model.md), not a measurement.\n"
            "  Helmholtz: the tone's place in Helmholtz's ordering of difference tones (1: f_high - f_low,\n"
            "  2: its difference with a primary, and so on). fit weights each tone by\n"
            "  audibility / (order - 1).\n";

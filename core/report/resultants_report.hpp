@@ -1,5 +1,5 @@
 // The resultant engine's results as reports: a terminal table per dyad, one flat CSV table,
-// and the JSON document of "terzo resultants" (keys in docs/resultants.md). They stream:
+// and the JSON document of "terzo resultants" (keys listed in docs/formats.md). They stream:
 // each dyad is written as the engine produces it, so memory does not grow with the number
 // of tones. Both front ends print resultants through these, so numbers read the same
 // everywhere.
@@ -14,7 +14,7 @@
 #include "core/analysis/chord.hpp"
 #include "core/analysis/combination.hpp"
 #include "core/analysis/fit.hpp"
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo {
 

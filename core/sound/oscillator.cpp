@@ -3,7 +3,7 @@
 #include <cmath>
 
 #include "core/error.hpp"
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

@@ -4,7 +4,7 @@
 #include <sstream>
 
 #include "core/error.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/note_names.hpp"
 #include "core/tuning/recipe.hpp"
 

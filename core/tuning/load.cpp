@@ -3,7 +3,7 @@
 #include <cctype>
 #include <filesystem>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/recipe.hpp"
 
 namespace terzo {

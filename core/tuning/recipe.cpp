@@ -6,8 +6,8 @@
 #include <optional>
 #include <vector>
 
-#include "core/io/format.hpp"
-#include "core/io/scl.hpp"
+#include "core/format.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/just.hpp"
 #include "core/tuning/modifiers.hpp"
 #include "core/tuning/note_names.hpp"

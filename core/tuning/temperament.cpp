@@ -4,7 +4,7 @@
 #include <cmath>
 #include <vector>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/pitch_set.hpp"
 
 namespace terzo {

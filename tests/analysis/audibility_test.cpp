@@ -4,7 +4,7 @@
 
 using namespace terzo;
 
-// The estimate encodes published findings (REFERENCES.md section 5.1); these tests check
+// The estimate encodes published findings (docs/references.md section 5.1); these tests check
 // that it says what those findings say, in the direction they say it.
 TEST_CASE("the cubic difference tone is the most audible term for close primaries", "[audibility]") {
     // Colman, Oxford Dictionary of Psychology: for 1800 + 2000 Hz the most audible

@@ -22,7 +22,7 @@ Pitch et_interval(int semitones) {
 } // namespace
 
 TEST_CASE("the beat rate of an interval near p/q is |q*f_high - p*f_low|", "[beats]") {
-    // Definition in REFERENCES.md section 4 ("lowest coincident partials").
+    // Definition in docs/references.md section 4 ("lowest coinciding partials").
     CHECK(beat_rate(200.0, 301.0, 3, 2) == Approx(2.0)); // fifth: |2*301 - 3*200|
     CHECK(beat_rate(200.0, 249.0, 5, 4) == Approx(4.0)); // major third: |4*249 - 5*200|
     CHECK(beat_rate(264.0, 330.0, 5, 4) == 0.0);
@@ -40,7 +40,7 @@ TEST_CASE("the checked intervals are the fifth, fourth, thirds and major sixth",
 }
 
 TEST_CASE("12-TET beat rates at A4 = 440 Hz match the piano-tuning handbook", "[beats]") {
-    // REFERENCES.md section 4: computed values, and B. Capleton, Theory and Practice of Piano
+    // docs/references.md section 4: computed values, and B. Capleton, Theory and Practice of Piano
     // Tuning (2007), table reproduced in Teki et al., J. Neurosci. 32(35) 2012, Table 1
     // [S, seen via the reproduction]; Capleton rounds to 0.1 beats per second.
     struct Case {
@@ -72,12 +72,12 @@ TEST_CASE("12-TET beat rates at A4 = 440 Hz match the piano-tuning handbook", "[
               Approx(b.hz).epsilon(1e-9));
     }
     // W. Braid White, Piano Tuning and Allied Arts, 5th ed. (1946), Table III p. 68, via a
-    // quotation (REFERENCES.md section 4 [S]): A3-C4 minor third 11.87.
+    // quotation (docs/references.md section 4 [S]): A3-C4 minor third 11.87.
     CHECK(beat(et_interval(3), 220.0, kind("minor third")).hz == Approx(11.87).margin(0.005));
 }
 
 TEST_CASE("12-TET fifths are 1.955 cents narrow and major thirds 13.686 cents wide", "[beats]") {
-    // REFERENCES.md section 1, "12-TET errors" [CP], computed with fractions/log2.
+    // docs/references.md section 1, "the errors of 12-tone equal temperament" [CP], computed with fractions/log2.
     CHECK(beat(et_interval(7), 261.6256, kind("fifth")).cents == Approx(-1.955001).margin(1e-6));
     CHECK(beat(et_interval(4), 261.6256, kind("major third")).cents ==
           Approx(13.686286).margin(1e-6));

@@ -83,7 +83,7 @@ TEST_CASE("a tempered chord with rational ratios keeps an exact bass", "[chord]"
 
 TEST_CASE("an inexact chord gets an approximate bass, labelled so", "[chord]") {
     // 12-TET major triad: as 4:5:6 the notes are off by 0, +13.686 and -1.955 c
-    // (REFERENCES.md section 1); the least-squares bass sits (13.686 - 1.955)/3 = 3.910 c
+    // (docs/references.md section 1); the least-squares bass sits (13.686 - 1.955)/3 = 3.910 c
     // above C2, and the worst note, E, is 13.686 - 3.910 = 9.776 c from its multiple.
     Keyboard kb(test::equal_division(12));
     CommonBass b = common_bass(kb, parse_chord("0,4,7", kb, {"--chord"}));

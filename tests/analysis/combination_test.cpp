@@ -48,7 +48,7 @@ std::vector<ExactTone> tones_of(const Keyboard& kb, const Note& lo, const Note& 
 } // namespace
 
 TEST_CASE("combination terms carry the names practitioners use", "[combination]") {
-    // REFERENCES.md section 5: f2-f1 the (quadratic) difference tone, 2f1-f2 the cubic
+    // docs/references.md section 5: f2-f1 the (quadratic) difference tone, 2f1-f2 the cubic
     // difference tone, f1+f2 the summation tone.
     CHECK(CombinationTerm{-1, 1}.name() == "difference tone");
     CHECK(CombinationTerm{2, -1}.name() == "cubic difference tone");
@@ -70,7 +70,7 @@ TEST_CASE("terms come by order, both coefficients non-zero, never both negative"
 }
 
 TEST_CASE("combination frequencies match the worked examples of REFERENCES.md", "[combination]") {
-    // REFERENCES.md section 5.2 [C] (constructed, recomputed with python3).
+    // docs/references.md section 5.2 [C] (constructed, recomputed with python3).
     SECTION("400 and 500 Hz (5:4)") {
         Keyboard kb(test::ratio_scale({{5, 4}}), 400.0);
         auto t = tones_of(kb, kb.note(0, 0), kb.note(1, 0), 5);
@@ -118,7 +118,7 @@ TEST_CASE("combination frequencies match the worked examples of REFERENCES.md", 
 }
 
 TEST_CASE("in a just major triad 4:5:6 every difference tone lands exactly on the root's pitch class", "[combination]") {
-    // Common practice; REFERENCES.md section 5.2: on 264 Hz the pairs give f2-f1 = 66, 66, 132 Hz.
+    // Common practice; docs/references.md section 5.2: on 264 Hz the pairs give f2-f1 = 66, 66, 132 Hz.
     Keyboard kb(test::ratio_scale({{5, 4}, {3, 2}}), 264.0);
     const Note n[] = {kb.note(0, 0), kb.note(1, 0), kb.note(2, 0)};
     const double want[3][3] = {{0, 66, 132}, {0, 0, 66}};
@@ -135,11 +135,11 @@ TEST_CASE("in a just major triad 4:5:6 every difference tone lands exactly on th
 }
 
 TEST_CASE("the difference tone of a 12-TET major third misses the scale by 32.6 cents", "[combination]") {
-    // REFERENCES.md section 5.2: for C4-E4, f2-f1 = 68.0020 Hz, 67.374 c above C2 (the just
+    // docs/references.md section 5.2: for C4-E4, f2-f1 = 68.0020 Hz, 67.374 c above C2 (the just
     // third's difference tone). python3: 1200*log2(2**(1/3) - 1) + 2400 = 67.374. The nearest
     // 12-TET degree is therefore C#2, 100 - 67.374 = 32.626 c above the tone. (The "about
     // 14 cents" often quoted for the tempered third is the third's own error against 5/4,
-    // +13.686 c, REFERENCES.md section 1, not where its difference tone lands.)
+    // +13.686 c, docs/references.md section 1, not where its difference tone lands.)
     Keyboard kb(test::equal_division(12));
     auto t = tones_of(kb, kb.note(0, 0), kb.note(4, 0), 2);
     const auto* d = find(t, -1, 1);
@@ -153,7 +153,7 @@ TEST_CASE("the difference tone of a 12-TET major third misses the scale by 32.6 
 }
 
 TEST_CASE("the cubic difference tone of a just fifth 2:3 lands exactly on 1:1", "[combination]") {
-    // 2*2 - 3 = 1 (REFERENCES.md section 5.2: 440 and 660 Hz give 2f1-f2 = 220 Hz).
+    // 2*2 - 3 = 1 (docs/references.md section 5.2: 440 and 660 Hz give 2f1-f2 = 220 Hz).
     Keyboard kb(test::just12());
     auto t = tones_of(kb, kb.note(0, 0), kb.note(7, 0), 3);
     const auto* c = find(t, 2, -1);
@@ -227,7 +227,7 @@ TEST_CASE("the exact and floating-point paths agree on frequencies and landings"
 
 TEST_CASE("Helmholtz's ladder of difference tones is expressed as combination terms", "[combination]") {
     // Level 1 f2-f1; level 2 its difference with a primary; and so on (Helmholtz, On the
-    // Sensations of Tone, Part II ch. VII, as described in REFERENCES.md section 5.1).
+    // Sensations of Tone, Part II ch. VII, as described in docs/references.md section 5.1).
     auto h = helmholtz_ladder(400, 500, 5);
     REQUIRE(h.size() >= 4);
     CHECK(h[0].term == CombinationTerm{-1, 1});

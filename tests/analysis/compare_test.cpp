@@ -33,7 +33,7 @@ int count_wolves(const CompareSummary& s, const char* interval) {
 
 TEST_CASE("in 12-TET every fifth is 1.955 c narrow and every major third 13.686 c wide",
           "[compare]") {
-    // REFERENCES.md section 1, "12-TET errors" [CP]: -1.955001, +13.686286, -15.641287.
+    // docs/references.md section 1, "the errors of 12-tone equal temperament" [CP]: -1.955001, +13.686286, -15.641287.
     KeyComparison c = compare_keys(test::equal_12(), CompareOptions{}, "12-TET");
     REQUIRE(c.keys.size() == 24);
     for (const KeyReport& k : c.keys) {
@@ -45,7 +45,7 @@ TEST_CASE("in 12-TET every fifth is 1.955 c narrow and every major third 13.686 
     CHECK(c.summary.mean_fifth == Approx(1.955001).margin(1e-6));
     CHECK(c.summary.worst_major_third == Approx(13.686286).margin(1e-6));
     CHECK(c.summary.wolves.empty());
-    // Beat rates of the C4 triad at A4 = 440: REFERENCES.md section 4 (C4-G4 0.8858,
+    // Beat rates of the C4 triad at A4 = 440: docs/references.md section 4 (C4-G4 0.8858,
     // C4-E4 10.3824; E4-G4 is a minor third on E4: 0.0539644250 * 329.6276 = 17.7882).
     CHECK(c.keys[0].fifth_beat.hz == Approx(0.8858).margin(5e-5));
     CHECK(c.keys[0].major_third.hz == Approx(10.3824).margin(5e-5));
@@ -57,7 +57,7 @@ TEST_CASE("in 12-TET every fifth is 1.955 c narrow and every major third 13.686 
 
 TEST_CASE("quarter-comma meantone has 8 pure major thirds and a wolf fifth of 737.6 c",
           "[compare]") {
-    // REFERENCES.md 2.2: 1/4-comma fifth 696.578428 c, wolf G#-Eb 737.637287 c, major third
+    // docs/references.md 2.2: 1/4-comma fifth 696.578428 c, wolf G#-Eb 737.637287 c, major third
     // 5/4 pure (Aron 1523; Zarlino 1571, Salinas 1577 [M]).
     KeyComparison c = compare_keys(test::quarter_comma(), CompareOptions{}, "qc");
     CHECK(c.summary.pure_major_thirds == 8);
@@ -68,7 +68,7 @@ TEST_CASE("quarter-comma meantone has 8 pure major thirds and a wolf fifth of 73
     CHECK(wolf.from == 8); // G#
     CHECK(701.955001 + wolf.cents == Approx(737.637287).margin(1e-5));
     CHECK(c.keys[0].fifth_beat.cents == Approx(696.578428 - 701.955001).margin(1e-6));
-    // The four diminished fourths (2/(5/4)^3 = 128/125 = 41.058858 c wide, REFERENCES.md 1).
+    // The four diminished fourths (2/(5/4)^3 = 128/125 = 41.058858 c wide, docs/references.md 1).
     CHECK(count_wolves(c.summary, "major third") == 4);
     for (const Wolf& w : c.summary.wolves)
         if (w.interval == "major third") CHECK(w.cents == Approx(41.058858).margin(1e-5));
@@ -78,7 +78,7 @@ TEST_CASE("quarter-comma meantone has 8 pure major thirds and a wolf fifth of 73
 }
 
 TEST_CASE("Pythagorean tuning has one wolf and circulating temperaments none", "[compare]") {
-    // REFERENCES.md 2.2: the Pythagorean wolf is 678.494990 c; Pythagorean thirds 81/64 are a
+    // docs/references.md 2.2: the Pythagorean wolf is 678.494990 c; Pythagorean thirds 81/64 are a
     // syntonic comma wide and stay below the third threshold.
     KeyComparison p = compare_keys(test::pythagorean(), CompareOptions{}, "p");
     REQUIRE(p.summary.wolves.size() == 1);
@@ -88,7 +88,7 @@ TEST_CASE("Pythagorean tuning has one wolf and circulating temperaments none", "
     KeyComparison w = compare_keys(test::werckmeister_3(), CompareOptions{}, "w");
     CHECK(w.summary.wolves.empty());
     CHECK(w.summary.pure_fifths == 8);
-    // REFERENCES.md 2.1: four fifths P/4 narrow, so the mean over 12 is P/12.
+    // docs/references.md 2.1: four fifths P/4 narrow, so the mean over 12 is P/12.
     CHECK(w.summary.mean_fifth == Approx(23.460010 / 12).margin(1e-6));
     CHECK(w.summary.worst_fifth == Approx(23.460010 / 4).margin(1e-6));
 }
@@ -155,7 +155,7 @@ TEST_CASE("a comparison needs a 12-note tuning and an octave on the keyboard", "
 }
 
 TEST_CASE("the nearest simple ratio respects the odd limit", "[compare]") {
-    // REFERENCES.md section 3 [CP]: 19-EDO 5 steps 315.789 c is 6/5 + 0.148; 31-EDO 10 steps
+    // docs/references.md section 3 [CP]: 19-EDO 5 steps 315.789 c is 6/5 + 0.148; 31-EDO 10 steps
     // 387.097 c is 5/4 + 0.783; 53-EDO 31 steps 701.887 c is 3/2 - 0.068.
     CHECK(nearest_simple_ratio(1200.0 * 5 / 19, 5) == Ratio(6, 5));
     CHECK(nearest_simple_ratio(1200.0 * 10 / 31, 5) == Ratio(5, 4));
@@ -189,7 +189,7 @@ TEST_CASE("interval classes list every size a step span takes", "[compare]") {
         CHECK(classes[3].sizes[0].size == Pitch::from_ratio(Ratio(5, 4))); // exactly pure
     }
     SECTION("13 equal divisions of 3/1: the scale's own consonances") {
-        // REFERENCES.md section 3 (Bohlen 1978; Mathews et al. 1988 [M]): 3 steps 438.913 c,
+        // docs/references.md section 3 (Bohlen 1978; Mathews et al. 1988 [M]): 3 steps 438.913 c,
         // 9/7 + 3.829; 4 steps 7/5 + 2.705; 6 steps 5/3 - 6.533.
         auto classes = interval_classes(equal_division(13, Ratio(3), "bp"), 9, "bp");
         REQUIRE(classes.size() == 12);
@@ -220,9 +220,9 @@ TEST_CASE("interval classes list every size a step span takes", "[compare]") {
 
 TEST_CASE("each key's resultant fit is computed by the resultant engine", "[compare]") {
     // A just scale on C (5-limit). Its C major triad is 4:5:6, whose difference and cubic
-    // difference tones all fall on C or G (REFERENCES.md 5.2: just 4:5:6 on 264 Hz gives
+    // difference tones all fall on C or G (docs/references.md 5.2: just 4:5:6 on 264 Hz gives
     // f2-f1 = 66, 66, 132 and 2f1-f2 = 198, 264, 132); in 12-TET the difference tone of
-    // C4-E4 alone is 67.374 c off (REFERENCES.md 5.2). So the just triad fits better. (Some
+    // C4-E4 alone is 67.374 c off (docs/references.md 5.2). So the just triad fits better. (Some
     // order-3 tones of 4:5:6, such as 2G-E = 7/4 C, land on no 5-limit note, so the just fit
     // is not 0: a property of the fit's definition in fit.hpp, not a defect here.)
     std::vector<Pitch> just;

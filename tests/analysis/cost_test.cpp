@@ -28,7 +28,7 @@ const std::vector<DeviationPart> every_statistic = {
 } // namespace
 
 TEST_CASE("12-TET deviates from pure by the published amounts in every key", "[cost]") {
-    // REFERENCES.md section 1, "12-TET errors": fifth -1.955001, major third +13.686286,
+    // docs/references.md section 1, "the errors of 12-tone equal temperament": fifth -1.955001, major third +13.686286,
     // minor third -15.641287 cents (computed with python3; common practice).
     KeyDeviations d = key_deviations(positions_of(test::equal_12()));
     for (int pc = 0; pc < 12; ++pc) {
@@ -47,7 +47,7 @@ TEST_CASE("12-TET deviates from pure by the published amounts in every key", "[c
 TEST_CASE("the cost's means and worst values equal the key comparison's summary", "[cost]") {
     // The same quantities computed two ways: compare_keys works key by key with exact
     // pitches; the cost model works on twelve doubles. Werckmeister III and quarter-comma
-    // meantone per REFERENCES.md 2.1.
+    // meantone per docs/references.md 2.1.
     for (const Scale& s : {test::werckmeister_3(), test::quarter_comma(), test::pythagorean()}) {
         for (bool weighted : {false, true}) {
             CompareOptions options;
@@ -96,7 +96,7 @@ TEST_CASE("beat-rate parts use the key comparison's beats at the reference pitch
         CHECK(b.parts[1].value == Approx(thirds).epsilon(1e-9));
         CHECK(b.parts[2].value == Approx(minors).margin(1e-9));
     }
-    // REFERENCES.md section 4 (computed; Capleton 2007 via Teki et al. 2012 gives 0.9):
+    // docs/references.md section 4 (computed; Capleton 2007 via Teki et al. 2012 gives 0.9):
     // the 12-TET fifth C4-G4 at A4 = 440 beats 0.8858 times a second; C4 is 261.6256 Hz.
     Cost c;
     c.beats = {{KeyInterval::fifth, 0.0, 1}};
@@ -143,7 +143,7 @@ TEST_CASE("constraints name the first interval that breaks them", "[cost]") {
     Cost w = cost_of({{KeyInterval::fifth, Statistic::rms, 1}});
     w.constraints.no_wide_fifths = true;
     CHECK(CostModel(w).evaluate(positions_of(test::werckmeister_3())).feasible);
-    // Quarter-comma meantone's wolf G#-Eb is 35.7 c wide (REFERENCES.md 2.2: 737.637 c).
+    // Quarter-comma meantone's wolf G#-Eb is 35.7 c wide (docs/references.md 2.2: 737.637 c).
     CostBreakdown q = CostModel(w).evaluate(positions_of(test::quarter_comma()));
     CHECK(q.violation == "the fifth from G# is +35.682 c, wider than pure");
 }

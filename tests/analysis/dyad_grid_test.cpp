@@ -41,7 +41,7 @@ TEST_CASE("the grid has one cell per ordered pair of degrees of one period", "[d
 TEST_CASE("every resultant of a just octave lands exactly on the scale", "[dyad_grid]") {
     // 1:2 at order 3 gives the multiples 1, 3, 4, 5 of the low note (a + 2b for the terms of
     // order <= 3): 1/1, 3/2, 1/1, 5/4 octave-reduced, all degrees of the demo scale
-    // (arithmetic as in REFERENCES.md 5.2 [C]).
+    // (arithmetic as in docs/references.md 5.2 [C]).
     Keyboard kb(demo(), 261.6255653, 1);
     const auto cells = dyad_grid(kb, order(3)); // keep the grid alive while its cell is read
     const DyadCell& octave = cells[0];
@@ -52,7 +52,7 @@ TEST_CASE("every resultant of a just octave lands exactly on the scale", "[dyad_
 }
 
 TEST_CASE("the worst landing of a tempered third is its difference tone", "[dyad_grid]") {
-    // REFERENCES.md 5.2 [C]: for the 12-TET third C4-E4, f2 - f1 = 68.0020 Hz, 67.374 c above
+    // docs/references.md 5.2 [C]: for the 12-TET third C4-E4, f2 - f1 = 68.0020 Hz, 67.374 c above
     // C2, so 32.626 c below the nearest 12-TET note (C#2). The summation tone 591.2531 Hz lands
     // 11.527 c above D5; at order 2 these are the only tones.
     Keyboard kb(equal_division(12), 261.6255653, 1);

@@ -34,7 +34,7 @@ TEST_CASE("the fit is the weighted RMS of landing deviations", "[fit]") {
 
 TEST_CASE("a just triad fits better than the 12-TET triad", "[fit]") {
     // The just triad's difference tones land exactly (common practice), the tempered ones
-    // miss by tens of cents (REFERENCES.md section 5.2), so its fit must be lower.
+    // miss by tens of cents (docs/references.md section 5.2), so its fit must be lower.
     Keyboard just(test::just12()), tet(test::equal_division(12));
     ToneOptions o;
     Fit j = fit(chord_tones(just, parse_chord("0,4,7", just, {"--chord"}), o));

@@ -18,14 +18,14 @@ TEST_CASE("a 12-note scale over one period has 13 notes, closing on the period",
 }
 
 TEST_CASE("the default reference is C4 of 12-tone equal temperament at A4 = 440 Hz", "[keyboard]") {
-    // 440 * 2^(-9/12) = 261.6255653 Hz (REFERENCES.md section 8: C4 for A4 = 440 is 261.6256).
+    // 440 * 2^(-9/12) = 261.6255653 Hz (docs/references.md section 8: C4 for A4 = 440 is 261.6256).
     CHECK_THAT(default_ref_hz, WithinRel(440.0 * std::exp2(-9.0 / 12.0), 1e-9));
     Keyboard kb(test::just12());
     CHECK(kb.ref_hz() == default_ref_hz);
 }
 
 TEST_CASE("notes carry their exact ratio to the reference and their frequency", "[keyboard]") {
-    // REFERENCES.md section 7: the workshop example with 1/1 = 264 Hz gives 6/5 = 316.8 Hz,
+    // docs/references.md section 7: the workshop example with 1/1 = 264 Hz gives 6/5 = 316.8 Hz,
     // 27/16 = 445.5 Hz and 2/1 = 528 Hz.
     Keyboard kb(test::ratio_scale({{6, 5}, {27, 16}}), 264.0, 2);
     CHECK_THAT(kb.note(1, 0).hz, WithinRel(316.8, 1e-12));
@@ -41,7 +41,7 @@ TEST_CASE("notes carry their exact ratio to the reference and their frequency", 
 
 TEST_CASE("tempered and cents-only notes have no ratio but the right frequency", "[keyboard]") {
     Keyboard kb(test::equal_division(12), 440.0, 2);
-    // A fifth of 12-TET above A4 = 440 Hz is E5 = 659.2551 Hz (REFERENCES.md section 5.2).
+    // A fifth of 12-TET above A4 = 440 Hz is E5 = 659.2551 Hz (docs/references.md section 5.2).
     CHECK_THAT(kb.note(7, 0).hz, WithinRel(659.2551, 1e-7));
     CHECK_FALSE(kb.note(7, 0).ratio());
     CHECK(kb.note(7, 0).pitch.kind() == Pitch::Kind::tempered);

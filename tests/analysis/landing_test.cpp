@@ -69,7 +69,7 @@ TEST_CASE("tempered tones coincide exactly with tempered notes, cents-only ones 
     CHECK(l.degree == 4);
     CHECK(l.period == -3);
     // A rational tone is never equal to a tempered degree: 5/4 lands on degree 4, 13.686 c
-    // below it (REFERENCES.md section 1: 12-TET major third error +13.686286 c).
+    // below it (docs/references.md section 1: 12-TET major third error +13.686286 c).
     l = landing(kb, Pitch::from_ratio(Ratio(5, 4)));
     CHECK(l.degree == 4);
     CHECK_FALSE(l.exact);

@@ -31,7 +31,7 @@ TEST_CASE("a 7-limit ratio sits at its own exponents of 3, 5 and 7", "[lattice]"
 }
 
 TEST_CASE("exact placement ignores the odd limit and the tolerance", "[lattice]") {
-    // Pythagorean C# = 3^7/2^11 (REFERENCES.md 2.3, Pythagorean row, [CP]).
+    // Pythagorean C# = 3^7/2^11 (docs/references.md 2.3, Pythagorean row, [CP]).
     LatticeOptions narrow{1.0, 3};
     auto p = place_on_lattice(ratio(2187, 2048), narrow);
     CHECK(p.how == LatticeHow::exact);
@@ -45,7 +45,7 @@ TEST_CASE("lattice_exponents rejects ratios with primes above 7", "[lattice]") {
 }
 
 TEST_CASE("equal-tempered degrees take their nearest just interpretation", "[lattice]") {
-    // 12-TET errors from REFERENCES.md section 1 ([CP]): fifth -1.955001, major third
+    // 12-TET errors from docs/references.md section 1 ([CP]): fifth -1.955001, major third
     // +13.686286, minor third -15.641287 cents.
     auto fifth = place_on_lattice(edo_step(7, 12));
     CHECK(fifth.how == LatticeHow::nearest);
@@ -60,7 +60,7 @@ TEST_CASE("equal-tempered degrees take their nearest just interpretation", "[lat
     // Near 1000 cents 16/9 (-3.91) beats 9/5 (-17.60), both within odd limit 9.
     CHECK(place_on_lattice(edo_step(10, 12)).just == Ratio(16, 9));
     // 31 equal divisions: step 10 is 5/4 + 0.783, step 25 is 7/4 - 1.084
-    // (REFERENCES.md section 3, 31-EDO row; Huygens 1691 [M]).
+    // (docs/references.md section 3, 31-EDO row; Huygens 1691 [M]).
     auto t31 = place_on_lattice(edo_step(10, 31));
     CHECK(t31.exponents == E{0, 1, 0});
     CHECK_THAT(t31.deviation_cents, WithinAbs(0.783, 5e-4));
@@ -70,7 +70,7 @@ TEST_CASE("equal-tempered degrees take their nearest just interpretation", "[lat
 }
 
 TEST_CASE("a meantone fifth is read as a narrowed 3/2", "[lattice]") {
-    // 1/4-comma fifth = 300*log2(5) = 696.578428 cents (REFERENCES.md 2.2, Aron [M]).
+    // 1/4-comma fifth = 300*log2(5) = 696.578428 cents (docs/references.md 2.2, Aron [M]).
     auto v = PrimeVector::prime_power(5, Ratio(1, 4)); // 5^(1/4) = fifth / octave-reduced
     auto p = place_on_lattice(Pitch::from_vector(v));
     CHECK(p.exponents == E{1, 0, 0});

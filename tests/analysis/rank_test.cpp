@@ -4,7 +4,7 @@
 #include <fstream>
 
 #include "core/analysis/rank.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "tests/analysis/test_tunings.hpp"
 
 using namespace terzo;
@@ -50,7 +50,7 @@ TEST_CASE("a folder of tunings is ranked by the worst major third, broken files 
     REQUIRE(r.entries.size() == 3);
     // 12-TET's thirds are all +13.686 c; Werckmeister III keeps Pythagorean thirds, a syntonic
     // comma (21.506 c) wide; quarter-comma meantone's diminished fourths are an enharmonic
-    // diesis (41.059 c) wide of 5/4 (REFERENCES.md sections 1 and 2.1).
+    // diesis (41.059 c) wide of 5/4 (docs/references.md sections 1 and 2.1).
     CHECK(r.entries[0].path == (dir / "equal.scl").string());
     CHECK(r.entries[0].value == Approx(13.686286).margin(1e-6));
     CHECK(r.entries[1].path == (dir / "deeper" / "werckmeister.SCL").string());
@@ -94,7 +94,7 @@ TEST_CASE("rank metric names are parsed and unknown ones rejected", "[rank]") {
                       "--by: error: unknown metric \"best\"; use one of mean-fifth, worst-fifth, mean-major-third, "
                       "worst-major-third, mean-minor-third, worst-minor-third, wolves, fit");
     // Wolves: quarter-comma meantone has the G#-Eb wolf fifth and 4 + 3 wolf thirds (its
-    // diminished fourths and augmented seconds, REFERENCES.md 2.2 via compare.hpp's thresholds).
+    // diminished fourths and augmented seconds, docs/references.md 2.2 via compare.hpp's thresholds).
     CHECK(measure_tuning(test::quarter_comma(), RankMetric::wolves, "q") == 8);
     CHECK(measure_tuning(test::equal_12(), RankMetric::wolves, "e") == 0);
     CHECK_THROWS_WITH(rank_tunings({}, RankMetric::fit, threads(0)), "--threads: error: thread count 0 is outside 1..64");

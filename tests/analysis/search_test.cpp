@@ -11,7 +11,7 @@ using namespace terzo;
 
 namespace {
 
-constexpr double P = 23.460010384649014; // Pythagorean comma, REFERENCES.md section 1
+constexpr double P = 23.460010384649014; // Pythagorean comma, docs/references.md section 1
 constexpr double S = 21.50628959671478;  // syntonic comma
 constexpr double s = 1.9537207882660588; // schisma
 
@@ -49,7 +49,7 @@ double binomial(int n, int k) {
 TEST_CASE("with fractions 0 and 1/4 and a fifths-only cost every result tempers exactly four fifths", "[search]") {
     // Twelve fractions from {0, 1/4} add up to one comma only as four quarters and eight
     // zeros, so every closed circle has exactly four fifths P/4 narrow (as Werckmeister III,
-    // REFERENCES.md 2.1) and there are C(12, 4) = 495 of them. Their fifths deviate by the
+    // docs/references.md 2.1) and there are C(12, 4) = 495 of them. Their fifths deviate by the
     // same multiset {-P/4 x4, 0 x8}, so "fifths only" ties them all: mean |dev| = 4(P/4)/12 =
     // P/12, rms = sqrt(4 (P/4)^2 / 12) = P / (4 sqrt 3), worst = P/4.
     CostModel m = model({{KeyInterval::fifth, Statistic::rms, 1}});
@@ -125,7 +125,7 @@ TEST_CASE("spreading the comma evenly gives the smallest rms of the fifths", "[s
     CHECK(count_of(r.results[0], Ratio(1, 6)) == 6);
     CHECK(r.results[0].cost == Approx(P / (6 * std::sqrt(2.0))).margin(1e-12));
     // The canonical copy puts the tempered fifths first: C-G … E-B narrowed by P/6, the
-    // rest pure, which is Young No. 2 (REFERENCES.md 2.1).
+    // rest pure, which is Young No. 2 (docs/references.md 2.1).
     for (int i = 0; i < 12; ++i) CHECK(r.results[0].fractions[static_cast<std::size_t>(i)] == (i < 6 ? Ratio(1, 6) : Ratio(0)));
 }
 
@@ -264,7 +264,7 @@ TEST_CASE("the smoothed cost's gradient matches finite differences", "[search]")
 TEST_CASE("making all major thirds as pure as possible leads the continuous search to equal temperament", "[search]") {
     // Each fifth lies in four of the twelve major thirds, so the thirds' deviations add up to
     // 12 S - 4 (sum of narrowings) = 12 S - 4 P whatever the distribution: their mean is fixed
-    // at S - P/3 = +13.686 c, which is 12-TET's third (REFERENCES.md section 1). The rms is at
+    // at S - P/3 = +13.686 c, which is 12-TET's third (docs/references.md section 1). The rms is at
     // least the size of the mean, with equality only when all twelve are equal: the best
     // possible thirds are all 12-TET thirds. Equal thirds alone leave a 4-periodic pattern
     // free; adding the fifths' rms (at least P/12, equal only when every fifth is P/12) makes
@@ -321,7 +321,7 @@ TEST_CASE("least-squares meantone lies between 1/4 and 1/5 comma, at 4/17 comma"
     // Meantone maps 3/2 to one generator g and 5/4 to four generators less two octaves. With
     // g = 3/2 narrowed by x cents, the fifth errs by -x and the third by S - 4x (four pure
     // fifths overshoot 5/4 by the syntonic comma). Minimising x^2 + (S - 4x)^2: 2x - 8(S - 4x) = 0,
-    // so x = 4S/17 = 5.0603 c, between S/5 = 4.3013 and S/4 = 5.3766 (REFERENCES.md 2.2).
+    // so x = 4S/17 = 5.0603 c, between S/5 = 4.3013 and S/4 = 5.3766 (docs/references.md 2.2).
     // This is our own closed-form derivation; no published least-squares value was checked.
     TargetCost cost;
     cost.targets = {parse_target("3/2=1", "--target"), parse_target("5/4=4", "--target")};
@@ -343,7 +343,7 @@ TEST_CASE("least-squares meantone lies between 1/4 and 1/5 comma, at 4/17 comma"
 
 TEST_CASE("without a pinned mapping the chain finds the schismatic third 8 fifths down", "[search]") {
     // With up to 11 generators either way, 5/4 can also be reached 8 fifths down and 5
-    // octaves up; eight pure fifths down miss 5/4 by a schisma s (REFERENCES.md section 1).
+    // octaves up; eight pure fifths down miss 5/4 by a schisma s (docs/references.md section 1).
     // With g = 3/2 - x the errors are -x and 8x - s; least squares gives x = 8s/65.
     TargetCost cost;
     cost.targets = {parse_target("3/2", "--target"), parse_target("5/4", "--target")};
@@ -372,7 +372,7 @@ TEST_CASE("without a pinned mapping the chain finds the schismatic third 8 fifth
 TEST_CASE("equal divisions are ranked by their targets' errors", "[search]") {
     TargetCost cost;
     cost.targets = {parse_target("3/2", "--target"), parse_target("5/4", "--target"), parse_target("6/5", "--target")};
-    // REFERENCES.md section 3 (common practice; computed): best 3/2, 5/4, 6/5 errors.
+    // docs/references.md section 3 (common practice; computed): best 3/2, 5/4, 6/5 errors.
     EqualResult e12 = evaluate_equal(cost, 1200.0, 12);
     CHECK(e12.errors[0].error == Approx(-1.955).margin(5e-4));
     CHECK(e12.errors[1].error == Approx(13.686).margin(5e-4));
@@ -392,7 +392,7 @@ TEST_CASE("equal divisions are ranked by their targets' errors", "[search]") {
     for (const auto& x : r) order.push_back(x.steps);
     CHECK(order == std::vector<int>{53, 34, 46, 50, 56});
     CHECK(r[0].cost == Approx(1.1228612018593416).margin(1e-9));
-    // Thirteen divisions of 3/1 (REFERENCES.md section 3): 7/5 is 4 steps, +2.705 c.
+    // Thirteen divisions of 3/1 (docs/references.md section 3): 7/5 is 4 steps, +2.705 c.
     TargetCost bp;
     bp.targets = {parse_target("7/5", "--target")};
     EqualResult e13 = evaluate_equal(bp, 1901.9550008653874, 13);

@@ -32,7 +32,7 @@ const SheetNote& find_note(const Sheet& s, const char* n) {
 TEST_CASE("a 12-TET sheet at A4 = 440 has the handbook frequencies and beat rates", "[sheet]") {
     Sheet s = make_sheet(test::equal_12(), SheetOptions{}, "12-TET");
     REQUIRE(s.notes.size() == 13); // F3..F4
-    // 12-TET frequencies: REFERENCES.md section 4, agreeing with the CRC Handbook of Chemistry
+    // 12-TET frequencies: docs/references.md section 4, agreeing with the CRC Handbook of Chemistry
     // and Physics, "Musical scales" [S].
     CHECK(find_note(s, "F3").hz == Approx(174.6141).margin(5e-5));
     CHECK(find_note(s, "C4").hz == Approx(261.6256).margin(5e-5));
@@ -40,7 +40,7 @@ TEST_CASE("a 12-TET sheet at A4 = 440 has the handbook frequencies and beat rate
     CHECK(find_note(s, "A3").hz == Approx(220.0).margin(1e-9));
     for (const auto& n : s.notes)
         CHECK(std::fabs(n.offset) < 1e-9);
-    // Beat rates: REFERENCES.md section 4 (computed; Capleton 2007 via Teki et al. 2012 [S]).
+    // Beat rates: docs/references.md section 4 (computed; Capleton 2007 via Teki et al. 2012 [S]).
     CHECK(find(s, "fifth", "F3").beat.hz == Approx(0.5912).margin(5e-5));
     CHECK(find(s, "major third", "F3").beat.hz == Approx(6.9294).margin(5e-5));
     CHECK(find(s, "major third", "A3").beat.hz == Approx(8.7305).margin(5e-5));
@@ -66,17 +66,17 @@ TEST_CASE("Werckmeister III at A4 = 440 has the published frequencies and constr
     o.low = note("C3");
     o.high = note("G4");
     Sheet s = make_sheet(test::werckmeister_3(), o, "w3");
-    // R. Rhodes, Mechanical Music Digest 2001-02-23, as recomputed in REFERENCES.md 2.3 [S].
+    // R. Rhodes, Mechanical Music Digest 2001-02-23, as recomputed in docs/references.md 2.3 [S].
     CHECK(find_note(s, "C3").hz == Approx(131.7021).margin(5e-5));
     CHECK(find_note(s, "G3").hz == Approx(196.8850).margin(5e-5));
     CHECK(find_note(s, "E3").hz == Approx(165.0000).margin(5e-5));
     CHECK(find_note(s, "Bb3").hz == Approx(234.1371).margin(5e-5));
     CHECK(find_note(s, "F3").hz == Approx(175.6028).margin(5e-5));
-    // Offsets from 12-TET with A fixed (REFERENCES.md 2.3, computed): C +11.7, F +9.8, F# 0.0.
+    // Offsets from 12-TET with A fixed (docs/references.md 2.3, computed): C +11.7, F +9.8, F# 0.0.
     CHECK(find_note(s, "C4").offset == Approx(11.730).margin(5e-4));
     CHECK(find_note(s, "F3").offset == Approx(9.775).margin(5e-4));
     CHECK(std::fabs(find_note(s, "F#3").offset) < 5e-4);
-    // Constructed beat rates [C], REFERENCES.md section 4.
+    // Constructed beat rates [C], docs/references.md section 4.
     CHECK(find(s, "fifth", "F3").beat.tempering == Tempering::pure);
     CHECK(find(s, "fifth", "F3").beat.hz == 0.0);
     CHECK(find(s, "fifth", "C4").beat.hz == Approx(2.6725).margin(5e-5));
@@ -93,7 +93,7 @@ TEST_CASE("quarter-comma meantone beats follow the meantone formula", "[sheet]")
     o.low = note("F3");
     o.high = note("G4");
     Sheet s = make_sheet(test::quarter_comma(), o, "qc");
-    // Constructed values [C], REFERENCES.md section 4.
+    // Constructed values [C], docs/references.md section 4.
     CHECK(find(s, "fifth", "F3").beat.hz == Approx(1.6372).margin(5e-5));
     CHECK(find(s, "fifth", "C4").beat.hz == Approx(2.4482).margin(5e-5));
     CHECK(find(s, "fifth", "A3").beat.hz == Approx(2.0465).margin(5e-5));
@@ -105,7 +105,7 @@ TEST_CASE("quarter-comma meantone beats follow the meantone formula", "[sheet]")
     }
     // The formula: with the fifth 5^(1/4) and A = C * 5^(3/4) / 2, C4 = 880 / 5^(3/4) and a
     // fifth on C4 beats at C4 * (3 - 2 * 5^(1/4)) (narrow); a fourth on A3 at
-    // A3 * (4 - 3 * 2 / 5^(1/4)) (wide), from the definition in REFERENCES.md section 4.
+    // A3 * (4 - 3 * 2 / 5^(1/4)) (wide), from the definition in docs/references.md section 4.
     double c4 = 880.0 / std::pow(5.0, 0.75);
     CHECK(find(s, "fifth", "C4").beat.hz ==
           Approx(c4 * (3 - 2 * std::pow(5.0, 0.25))).epsilon(1e-12));
@@ -119,7 +119,7 @@ TEST_CASE("the reference may name any note, and frequencies follow it", "[sheet]
     SheetOptions o;
     o.reference = ref("A4=415");
     Sheet s = make_sheet(test::equal_12(), o, "12-TET");
-    // REFERENCES.md section 8: 12-TET C4 for A4 = 415 is 246.7605 Hz [CP, computed].
+    // docs/references.md section 8: 12-TET C4 for A4 = 415 is 246.7605 Hz [CP, computed].
     CHECK(find_note(s, "C4").hz == Approx(246.7605).margin(5e-5));
     o.reference = ref("C4=256");
     Sheet c = make_sheet(test::werckmeister_3(), o, "w3");
@@ -150,7 +150,7 @@ TEST_CASE("the tuning order alternates fifths and fourths, then octaves", "[shee
     CHECK_FALSE(s.order[0].from);
     CHECK(s.order[1].kind == TuningStep::Kind::octave_down);
     CHECK(s.order[2].kind == TuningStep::Kind::fifth_up);
-    CHECK(s.order[2].beat.hz == Approx(0.7449).margin(5e-5)); // A3-E4, REFERENCES.md section 4
+    CHECK(s.order[2].beat.hz == Approx(0.7449).margin(5e-5)); // A3-E4, docs/references.md section 4
     CHECK(s.order[3].kind == TuningStep::Kind::fourth_down);
     CHECK(s.order[3].beat.hz == Approx(1.1161).margin(5e-5)); // B3-E4
     CHECK(s.order[3].beat.tempering == Tempering::wide);
@@ -178,7 +178,7 @@ TEST_CASE("the circle of fifths shows each fifth's tempering", "[sheet]") {
     Sheet q = make_sheet(test::quarter_comma(), SheetOptions{}, "qc");
     REQUIRE(q.circle.size() == 12);
     CHECK(q.circle[8].from == 8); // G#-Eb
-    // REFERENCES.md 2.2: the quarter-comma wolf is 737.637287 c, other fifths 696.578428 c.
+    // docs/references.md 2.2: the quarter-comma wolf is 737.637287 c, other fifths 696.578428 c.
     CHECK(q.circle[8].beat.cents == Approx(737.637287 - 701.955001).margin(1e-5));
     CHECK(q.circle[0].beat.cents == Approx(696.578428 - 701.955001).margin(1e-5));
 }

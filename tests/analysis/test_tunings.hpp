@@ -1,5 +1,5 @@
 // Tunings built directly from exact prime powers for the analysis tests, so that reference
-// checks do not depend on any recipe parser. Each follows REFERENCES.md section 2.1.
+// checks do not depend on any recipe parser. Each follows docs/references.md section 2.1.
 #pragma once
 
 #include <vector>

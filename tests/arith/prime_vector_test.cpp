@@ -19,7 +19,7 @@ TEST_CASE("a ratio factors into integer prime exponents", "[prime_vector]") {
 }
 
 TEST_CASE("a quarter-comma meantone fifth is exactly the fourth root of five", "[prime_vector]") {
-    // 3/2 * (80/81)^(1/4) = 2^(-1+1) * 3^(1-1) * 5^(1/4) = 5^(1/4): REFERENCES.md 2.2 gives the
+    // 3/2 * (80/81)^(1/4) = 2^(-1+1) * 3^(1-1) * 5^(1/4) = 5^(1/4): docs/references.md 2.2 gives the
     // fifth as 696.578428 = 300 * log2(5) (common practice).
     PrimeVector fifth = PrimeVector::from_ratio(Ratio(3, 2)) *
                         PrimeVector::from_ratio(Ratio(80, 81)).pow(Ratio(1, 4));
@@ -40,7 +40,7 @@ TEST_CASE("an equal division step is a rational power of its interval", "[prime_
     PrimeVector sixth = PrimeVector::from_ratio(Ratio(3, 2)) *
                         PrimeVector::from_ratio(Ratio(80, 81)).pow(Ratio(1, 6));
     CHECK(sixth.str() == "2^(-1/3)*3^(1/3)*5^(1/6)");
-    // REFERENCES.md 2.2: 1/6-comma fifth 698.370619 c.
+    // docs/references.md 2.2: 1/6-comma fifth 698.370619 c.
     CHECK(sixth.cents() == Approx(698.370619).margin(1e-6));
 }
 

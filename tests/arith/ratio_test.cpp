@@ -60,7 +60,7 @@ TEST_CASE("additions that overflow 64 bits are promoted, not wrapped", "[ratio]"
 }
 
 TEST_CASE("cents of published intervals", "[ratio]") {
-    // REFERENCES.md section 1 (values recomputed with Python's math.log2): fifth and fourth
+    // docs/references.md section 1 (values recomputed with Python's math.log2): fifth and fourth
     // common practice; syntonic and Pythagorean comma as defined in Barbour 1951, preface [S].
     CHECK(terzo::cents(Ratio(3, 2)) == Approx(701.955001).margin(1e-6));
     CHECK(terzo::cents(Ratio(4, 3)) == Approx(498.044999).margin(1e-6));
@@ -76,7 +76,7 @@ TEST_CASE("cents of published intervals", "[ratio]") {
 }
 
 TEST_CASE("comma identities hold exactly", "[ratio]") {
-    // REFERENCES.md section 1, "identities ... verified exactly with Fraction".
+    // docs/references.md section 1, "Exact identities, each checked with `Fraction`".
     CHECK(Ratio(3, 2).pow(12) / Ratio(2).pow(7) == Ratio(531441, 524288));
     CHECK(Ratio(531441, 524288) / Ratio(81, 80) == Ratio(32805, 32768));
     CHECK(Ratio(81, 80) / Ratio(32805, 32768) == Ratio(2048, 2025));

@@ -12,12 +12,12 @@ TEST_CASE("terzo compare prints keys, summary, wolves and interval classes", "[c
     auto r = run_terzo("compare 'equal 12' 'meantone 1/4 from Eb' --no-fit");
     REQUIRE(r.status == 0);
     CHECK(r.err.empty());
-    // REFERENCES.md section 1 and 4: 12-TET C major -1.955 / +13.686 / -15.641 c, C4-G4 0.89,
+    // docs/references.md section 1 and 4: 12-TET C major -1.955 / +13.686 / -15.641 c, C4-G4 0.89,
     // C4-E4 10.38 beats/s.
     CHECK(r.out.find(
               "C major   C4 E4 G4      -1.955       0.89  +13.686     10.38  -15.641     17.79") !=
           std::string::npos);
-    // REFERENCES.md 2.2: the quarter-comma wolf G#-Eb is 737.637 c, 35.682 c wide of 3/2.
+    // docs/references.md 2.2: the quarter-comma wolf G#-Eb is 737.637 c, 35.682 c wide of 3/2.
     CHECK(r.out.find("fifth        G#-Eb      +35.682") != std::string::npos);
     CHECK(r.out.find("Interval classes") != std::string::npos);
 }
@@ -33,7 +33,7 @@ TEST_CASE("terzo compare --json, --csv and --svg", "[compare]") {
     CHECK(doc["weights"]["C major"] == 2.0);
     CHECK(doc["tunings"][0]["summary"]["weighted"] == true);
     CHECK(doc["tunings"][1]["keys"].is_null()); // 19 notes: interval classes only
-    // REFERENCES.md section 3: 19-EDO 11 steps = 694.737 c, 3/2 - 7.218.
+    // docs/references.md section 3: 19-EDO 11 steps = 694.737 c, 3/2 - 7.218.
     bool found = false;
     for (const auto& c : doc["tunings"][1]["interval_classes"])
         if (c["steps"] == 11) {
@@ -72,7 +72,7 @@ TEST_CASE("terzo compare reports bad input and prints nothing", "[compare]") {
 TEST_CASE("terzo compare finds the pure thirds of a library file written in cents", "[compare]") {
     // scales/meantone-quarter-comma.scl holds cents-only values (E and G# are written as
     // ratios); its 8 major thirds are pure, most of them within the cents-only tolerance
-    // (REFERENCES.md 2.2: 1/4-comma makes 5/4 pure).
+    // (docs/references.md 2.2: 1/4-comma makes 5/4 pure).
     auto r =
         run_terzo("compare " + terzo::test::source_path("scales/meantone-quarter-comma.scl") + " " +
                   terzo::test::source_path("scales/werckmeister-iii.scl") + " --json --no-fit");
@@ -82,7 +82,7 @@ TEST_CASE("terzo compare finds the pure thirds of a library file written in cent
     CHECK(doc["tunings"][0]["keys"][0]["major_third"]["exact"] == true);  // C-E: 1/1 to 5/4
     CHECK(doc["tunings"][0]["keys"][7]["major_third"]["exact"] == false); // G-B: cents only
     CHECK(doc["tunings"][0]["keys"][7]["major_third"]["tempering"] == "pure");
-    // REFERENCES.md 2.1: Werckmeister III has 8 pure fifths and no wolf.
+    // docs/references.md 2.1: Werckmeister III has 8 pure fifths and no wolf.
     CHECK(doc["tunings"][1]["summary"]["pure_fifths"] == 8);
     CHECK(doc["tunings"][1]["summary"]["wolves"].empty());
 }

@@ -50,7 +50,7 @@ TEST_CASE("export writes several outputs in one run", "[export]") {
     INFO(r.err);
     REQUIRE(r.status == 0);
     CHECK(r.err.empty());
-    // REFERENCES.md 6.5 [C]: 1/4-comma, 1-byte form, non-real-time, all channels.
+    // docs/references.md 6.5 [C]: 1/4-comma, 1-byte form, non-real-time, all channels.
     CHECK(hex(slurp(d / "o1.syx")) ==
           "F0 7E 7F 08 08 03 7F 7F 40 28 39 4A 32 43 2B 3D 25 36 47 2F F7");
     // With --bank the dump is the key-based form 04 (409 bytes) and the notes use 07.
@@ -69,7 +69,7 @@ TEST_CASE("export writes several outputs in one run", "[export]") {
 
 TEST_CASE("export without a reference keeps the root key at its 12-TET pitch unless the tuning has 12 notes", "[export]") {
     const fs::path d = fresh_dir("default-reference");
-    // 12-TET at A4 = 440 Hz: C4 261.6256 Hz (REFERENCES.md 4, agreeing with the CRC Handbook's
+    // 12-TET at A4 = 440 Hz: C4 261.6256 Hz (docs/references.md 4, agreeing with the CRC Handbook's
     // table of equal-tempered frequencies). In the 7-note scale key 69 plays degree 2 of the
     // next period (5/4 above 2/1), which the old default pinned to 440 Hz.
     Run seven = run_terzo_in(d, "export seven.scl --table seven.csv");
@@ -110,7 +110,7 @@ TEST_CASE("export writes nothing when any output fails its checks", "[export]") 
         CHECK(forced.status == 0);
         CHECK(slurp(d / "b.syx").size() == 408);
         // Key 24 is 264 * 7/4 / 64 = 7.22 Hz, below 8.1758; key 100 is 264 * 5/3 * 32 =
-        // 14080 Hz, above 13289.66 (REFERENCES.md 6.3 computed range).
+        // 14080 Hz, above 13289.66 (docs/references.md 6.3 computed range).
         CHECK(forced.out.find(
                   "Keys outside the MIDI Tuning Standard's 8.175799..13289.656616 Hz, sent as \"no "
                   "change\" in dumps and left out of single-note changes: 0-24, 100-127\n") !=

@@ -27,7 +27,7 @@ TEST_CASE("terzo inspect --json prints one object with the documented keys", "[i
     CHECK(j["degrees"][0]["ratio"] == "1/1");
     CHECK(j["degrees"][0]["exact"] == true);
     CHECK(j["degrees"][6]["ratio"] == "7/4");
-    // REFERENCES.md section 1: 7/4 = 968.825906 c (common practice).
+    // docs/references.md section 1: 7/4 = 968.825906 c (common practice).
     CHECK(j["degrees"][6]["cents"].get<double>() == Approx(968.825906).margin(1e-6));
 }
 

@@ -30,7 +30,7 @@ TEST_CASE("terzo rank ranks a folder and exits 0 when every file was read", "[ra
     CHECK(r.err.empty());
     // Pythagorean: eleven pure fifths and the wolf G#-Eb a Pythagorean comma (23.460 c)
     // narrow; the just scale's worst fifths are D-A and Bb-F, 40/27, a syntonic comma
-    // (21.506 c) narrow (REFERENCES.md section 1; ratios checked by hand).
+    // (21.506 c) narrow (docs/references.md section 1; ratios checked by hand).
     auto first = r.out.find("just");
     auto second = r.out.find("pythagorean");
     CHECK(first != std::string::npos);

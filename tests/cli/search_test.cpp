@@ -2,7 +2,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "tests/support/run.hpp"
 
 using terzo::test::run_terzo;

@@ -11,7 +11,7 @@ TEST_CASE("terzo sheet prints frequencies, beats and an order for a recipe", "[s
     auto r = run_terzo("sheet 'equal 12' --pitch A4=440");
     REQUIRE(r.status == 0);
     CHECK(r.err.empty());
-    // F3 174.614 Hz; F3-C4 0.5912, F3-Bb3 0.7892, F3-A3 6.9294 beats/s (REFERENCES.md section 4).
+    // F3 174.614 Hz; F3-C4 0.5912, F3-Bb3 0.7892, F3-A3 6.9294 beats/s (docs/references.md section 4).
     CHECK(r.out.find("F3         5  174.614       0.00  0.59 narrow  0.79 wide   6.93 wide") !=
           std::string::npos);
     CHECK(r.out.find("   1  A4    reference  -            440.000") != std::string::npos);

@@ -5,7 +5,7 @@
 #include <sstream>
 
 #include "core/io/mts.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "tests/support/scales.hpp"
 
 using namespace terzo;
@@ -15,7 +15,7 @@ namespace {
 
 // ---------------------------------------------------------------------------------------
 // An independent reader of MIDI Tuning Standard messages, written from the layouts in
-// REFERENCES.md 6.1 (MMA "MIDI Tuning Messages", CA-020/CA-021/RP-020 [S]) without using
+// docs/references.md 6.1 (MMA "MIDI Tuning Messages", CA-020/CA-021/RP-020 [S]) without using
 // anything from core/io/mts.hpp. It checks every fixed byte and the checksum, and turns
 // frequency data into Hz with f = 440 * 2^((xx + (yy*128 + zz)/16384 - 69) / 12).
 struct Decoded {
@@ -123,7 +123,7 @@ Decoded read_message(const Bytes& m) {
 }
 
 // ---------------------------------------------------------------------------------------
-// Tunings built from their definitions (REFERENCES.md 2.1).
+// Tunings built from their definitions (docs/references.md 2.1).
 
 
 // A chain of fifths Eb..G# (n = -3..8) of the given fifth, folded into one octave.
@@ -146,7 +146,7 @@ Scale pythagorean() {
     return chain_of_fifths(PrimeVector::from_ratio(Ratio(3, 2)));
 }
 
-// 12-TET C4 at A4 = 440: the reference for offsets "with C fixed" (REFERENCES.md 2.4).
+// 12-TET C4 at A4 = 440: the reference for offsets "with C fixed" (docs/references.md 2.4).
 KeyReference c_fixed() {
     return {60, 440.0 * std::exp2(-9.0 / 12.0)};
 }
@@ -156,7 +156,7 @@ const SourcePos opt{"--mts-octave1", 0, 0};
 } // namespace
 
 TEST_CASE("the specification's frequency-data examples decode to their computed values", "[mts]") {
-    // REFERENCES.md 6.3: the example table of the MMA MIDI Tuning spec (CA-020/CA-021/RP-020)
+    // docs/references.md 6.3: the example table of the MMA MIDI Tuning spec (CA-020/CA-021/RP-020)
     // [S]; the "Computed" column, since several printed values are wrong (also posted as
     // corrections on the MMA forum, 2018 [S]).
     struct Row {
@@ -184,7 +184,7 @@ TEST_CASE("the specification's frequency-data examples decode to their computed 
 
 TEST_CASE("frequencies round to the nearest 1/16384 semitone, carrying into the semitone",
           "[mts]") {
-    // REFERENCES.md 6.4 constructed encodings [C], "Rounded" column.
+    // docs/references.md 6.4 constructed encodings [C], "Rounded" column.
     struct Row {
         double hz;
         MtsFrequency f;
@@ -253,7 +253,7 @@ TEST_CASE("a bulk dump is read back to every key's frequency within the resoluti
     const auto name = mts_name("quarter comma", {"--name", 0, 0});
     KeyEncoding e = encode_keys(meantone);
     Bytes msg = bulk_tuning_dump(e.keys, name, {0x7F, 5, 0});
-    REQUIRE(msg.size() == 408); // REFERENCES.md 6.1: sub-ID 01 is 408 bytes
+    REQUIRE(msg.size() == 408); // docs/references.md 6.1: sub-ID 01 is 408 bytes
     Decoded d = read_message(msg);
     CHECK(d.sub_id == 0x01);
     CHECK_FALSE(d.realtime);
@@ -294,7 +294,7 @@ TEST_CASE("a bulk dump is read back to every key's frequency within the resoluti
 }
 
 TEST_CASE("the bulk dump checksum follows the XOR rule of the specification", "[mts]") {
-    // REFERENCES.md 6.6 worked example [C] of the CA-020 rule [S]: 12-TET, device 00,
+    // docs/references.md 6.6 worked example [C] of the CA-020 rule [S]: 12-TET, device 00,
     // program 00, name "12-TET A440": 6D when every byte between F0 and the checksum is
     // XORed (65 if the 08 byte is left out, as the original wording reads; receivers may
     // ignore this checksum).
@@ -306,8 +306,8 @@ TEST_CASE("the bulk dump checksum follows the XOR rule of the specification", "[
     CHECK(dump[406] == 0x6D);
     CHECK((mts_checksum(dump, 1, 406) ^ 0x08) == 0x65);
     Bytes bank_dump = key_based_tuning_dump(keys, name, {0, 0, 0});
-    REQUIRE(bank_dump.size() == 409); // REFERENCES.md 6.1
-    CHECK(bank_dump[407] == 0x68);    // REFERENCES.md 6.6
+    REQUIRE(bank_dump.size() == 409); // docs/references.md 6.1
+    CHECK(bank_dump[407] == 0x68);    // docs/references.md 6.6
     Decoded d = read_message(bank_dump);
     CHECK(d.sub_id == 0x04);
     CHECK(d.checksum_ok);
@@ -362,7 +362,7 @@ TEST_CASE("single-note tuning changes have the specification's layout and length
 }
 
 TEST_CASE("scale/octave offsets of a 12-note tuning are its cents from 12-TET", "[mts]") {
-    // REFERENCES.md 2.4, offsets from 12-TET with C fixed [computed].
+    // docs/references.md 2.4, offsets from 12-TET with C fixed [computed].
     const double quarter[12] = {0,       -23.951, -6.843,  +10.265, -13.686, +3.422,
                                 -20.529, -3.422,  -27.373, -10.265, +6.843,  -17.108};
     const double pyth[12] = {0,       +13.685, +3.910,  -5.865, +7.820, -1.955,
@@ -405,7 +405,7 @@ TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
     SECTION("1-byte form, non-real-time, all channels (REFERENCES.md 6.5 [C])") {
         auto enc = encode_offsets_1byte(o, opt);
         Bytes msg = scale_octave_1byte(enc.values, all_channels, 0x7F, false);
-        REQUIRE(msg.size() == 21); // REFERENCES.md 6.1
+        REQUIRE(msg.size() == 21); // docs/references.md 6.1
         CHECK(hex_text(msg) == "F0 7E 7F 08 08 03 7F 7F 40 28 39 4A 32 43 2B 3D 25 36 47 2F F7");
         CHECK(enc.max_error_cents <= 0.5);
         CHECK(enc.max_error_cents > 0.3); // C# -23.951 goes to -24
@@ -462,7 +462,7 @@ TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
 }
 
 TEST_CASE("scale/octave offset bytes decode to their cents", "[mts]") {
-    // REFERENCES.md 6.5: 1-byte 00 = -64, 40 = 0, 7F = +63; 2-byte 00 00 = -100,
+    // docs/references.md 6.5: 1-byte 00 = -64, 40 = 0, 7F = +63; 2-byte 00 00 = -100,
     // 40 00 = 0, 7F 7F = +99.987793; samples +1 -> 40 52, -1 -> 3F 2E, +13.686 -> 48 61,
     // -13.686 -> 37 1F, +50 -> 60 00, -50 -> 20 00.
     CHECK(decode_offset_1byte(0x00) == -64);
@@ -485,7 +485,7 @@ TEST_CASE("scale/octave offset bytes decode to their cents", "[mts]") {
     CHECK_FALSE(encode_offset_2byte(100.0));
 
     SECTION("an offset outside the form's range is refused naming the note") {
-        // 12-TET at A4 = 415 is -101.271 cents from A4 = 440 (REFERENCES.md 8, computed).
+        // 12-TET at A4 = 415 is -101.271 cents from A4 = 440 (docs/references.md 8, computed).
         OctaveOffsets low = octave_offsets(KeyMap(test::equal_division(12), 60, {69, 415.0}), opt);
         REQUIRE_THROWS_WITH(
             encode_offsets_2byte(low, {"--mts-octave2", 0, 0}),
@@ -505,7 +505,7 @@ TEST_CASE("scale/octave offset bytes decode to their cents", "[mts]") {
 }
 
 TEST_CASE("the channel bitmap puts channels 15-16, 8-14 and 1-7 in three bytes", "[mts]") {
-    // REFERENCES.md 6.1 (MMA spec [S]): ff bits 0-1 = channels 15-16, gg = 8-14, hh = 1-7.
+    // docs/references.md 6.1 (MMA spec [S]): ff bits 0-1 = channels 15-16, gg = 8-14, hh = 1-7.
     std::array<std::uint8_t, 12> zero;
     zero.fill(0x40);
     auto mask = [&](ChannelSet c) {

@@ -6,7 +6,7 @@
 #include <fstream>
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 
 using namespace terzo;
 

@@ -6,7 +6,7 @@
 #include <nlohmann/json.hpp>
 
 #include "core/report/resultants_report.hpp"
-#include "tests/analysis/helpers.hpp"
+#include "../analysis/helpers.hpp"
 #include "tests/support/run.hpp"
 
 using namespace terzo;
@@ -132,7 +132,7 @@ TEST_CASE("nothing is written before the first dyad, so a refused request leaves
 
 TEST_CASE("the CSV rows carry the exact ratio and the landing of each tone", "[report]") {
     // 1/1 and 5/4 from the reference 264 Hz: the difference tone is 66 Hz = 1/4, degree 0
-    // two periods down, exactly (REFERENCES.md section 5.2, as in combination_test.cpp).
+    // two periods down, exactly (docs/references.md section 5.2, as in combination_test.cpp).
     Keyboard kb(test::ratio_scale({{5, 4}, {3, 2}}), 264.0);
     ResultantsReport r;
     r.keyboard = &kb;

@@ -6,7 +6,7 @@
 #include <vector>
 
 #include "core/arith/pitch.hpp"
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/scale.hpp"
 
 namespace terzo::test {

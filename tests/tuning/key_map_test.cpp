@@ -3,7 +3,7 @@
 #include <cmath>
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/key_map.hpp"
 #include "tests/support/scales.hpp"
 
@@ -13,7 +13,7 @@ using Catch::Matchers::WithinAbs;
 namespace {
 
 
-// Werckmeister III as in REFERENCES.md 2.1: C-G, G-D, D-A and B-F# a quarter of the
+// Werckmeister III as in docs/references.md 2.1: C-G, G-D, D-A and B-F# a quarter of the
 // Pythagorean comma P = 3^12/2^19 narrow, the other fifths pure. q = (2^19/3^12)^(1/4).
 Scale werckmeister_3() {
     const PrimeVector q =
@@ -40,11 +40,11 @@ const char* const demo_scl = "! demo\nseven notes\n 7\n 9/8\n 5/4\n 4/3\n 3/2\n 
 
 TEST_CASE("12-TET at A4 = 440 Hz gives the standard key frequencies", "[key_map]") {
     KeyMap map(test::equal_division(12), 60, KeyReference{69, 440.0});
-    // REFERENCES.md 8: 12-TET C4 at A4 = 440 is 261.6256 Hz [CP, computed].
+    // docs/references.md 8: 12-TET C4 at A4 = 440 is 261.6256 Hz [CP, computed].
     CHECK_THAT(map.at(60).hz, WithinAbs(261.6256, 5e-5));
     CHECK_THAT(map.root_hz(), WithinAbs(261.6256, 5e-5));
     CHECK(map.at(69).hz == 440.0);
-    // REFERENCES.md 6.3 computed column: key 0 = 8.175799 Hz, key 120 = 8372.018090 Hz,
+    // docs/references.md 6.3 computed column: key 0 = 8.175799 Hz, key 120 = 8372.018090 Hz,
     // key 127 = 12543.853951 Hz (MMA MIDI Tuning spec example table, corrected).
     CHECK_THAT(map.at(0).hz, WithinAbs(8.175799, 5e-7));
     CHECK_THAT(map.at(120).hz, WithinAbs(8372.018090, 5e-6));
@@ -57,18 +57,18 @@ TEST_CASE("12-TET at A4 = 440 Hz gives the standard key frequencies", "[key_map]
 
 TEST_CASE("Werckmeister III at A4 = 440 Hz matches the published frequencies", "[key_map]") {
     KeyMap map(werckmeister_3(), 48, KeyReference{69, 440.0});
-    // REFERENCES.md 2.3: octave 3 at A4 = 440 as printed by R. Rhodes, Mechanical Music
+    // docs/references.md 2.3: octave 3 at A4 = 440 as printed by R. Rhodes, Mechanical Music
     // Digest 2001-02-23 [S] (agreeing with the computation to every printed digit).
     const double hz[12] = {131.7021, 138.7479, 147.1644, 156.0914, 165.0000, 175.6028,
                            184.9972, 196.8850, 208.1219, 220.0,    234.1371, 247.5000};
     for (int pc = 0; pc < 12; ++pc)
         CHECK_THAT(map.at(48 + pc).hz, WithinAbs(hz[pc], 5e-5));
-    // REFERENCES.md 2.3, offsets from 12-TET with A fixed [computed]: C +11.7, C# +2.0,
+    // docs/references.md 2.3, offsets from 12-TET with A fixed [computed]: C +11.7, C# +2.0,
     // D +3.9, Eb +5.9, E +2.0, F +9.8, F# 0.0, G +7.8, G# +3.9, A 0, Bb +7.8, B +3.9.
     const double offsets[12] = {11.7, 2.0, 3.9, 5.9, 2.0, 9.8, 0.0, 7.8, 3.9, 0.0, 7.8, 3.9};
     for (int pc = 0; pc < 12; ++pc)
         CHECK_THAT(map.at(60 + pc).cents_from_equal, WithinAbs(offsets[pc], 0.05));
-    // A-E is a pure fifth (REFERENCES.md 2.1), so E4 is exactly 3/4 of 440 Hz.
+    // A-E is a pure fifth (docs/references.md 2.1), so E4 is exactly 3/4 of 440 Hz.
     CHECK(map.at(64).from_root.is_exact());
     CHECK_THAT(map.at(64).hz, WithinAbs(330.0, 1e-9));
 }
@@ -109,9 +109,9 @@ TEST_CASE("a named reference pitch is mapped through its key", "[key_map]") {
     CHECK(key_ref.hz == 415.0);
     KeyMap map(test::equal_division(12), 60, key_ref);
     CHECK_THAT(map.at(69).hz, WithinAbs(415.0, 1e-9));
-    // REFERENCES.md 8: 12-TET C4 when A4 = 415 is 246.7605 Hz [CP, computed].
+    // docs/references.md 8: 12-TET C4 when A4 = 415 is 246.7605 Hz [CP, computed].
     CHECK_THAT(map.root_hz(), WithinAbs(246.7605, 5e-5));
-    // 415 Hz is -101.271 cents from 440 (REFERENCES.md 8, computed); the cents from 12-TET
+    // 415 Hz is -101.271 cents from 440 (docs/references.md 8, computed); the cents from 12-TET
     // are taken at the same reference, so they stay zero.
     CHECK_THAT(map.at(69).midi_note, WithinAbs(69 - 1.01271, 5e-6));
     CHECK_THAT(map.at(40).cents_from_equal, WithinAbs(0, 1e-9));
@@ -130,7 +130,7 @@ TEST_CASE("a named reference pitch is mapped through its key", "[key_map]") {
 
 TEST_CASE("without a reference, 12-note tunings sit at A4 = 440 and other sizes keep the root key's 12-TET pitch", "[key_map]") {
     // 12-TET at A4 = 440 Hz: C4 (key 60) is 261.6256 Hz and D4 (key 62) 293.6648 Hz
-    // (REFERENCES.md 4, agreeing with the CRC Handbook's table of equal-tempered frequencies).
+    // (docs/references.md 4, agreeing with the CRC Handbook's table of equal-tempered frequencies).
     const KeyReference twelve = default_key_reference(12, 60);
     CHECK(twelve.key == 69);
     CHECK(twelve.hz == 440.0);

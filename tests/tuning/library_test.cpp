@@ -5,7 +5,7 @@
 #include <set>
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/library.hpp"
 #include "tests/support/run.hpp"
 
@@ -53,7 +53,7 @@ TEST_CASE("every library file reads back as the tuning of its recipe", "[library
         CHECK(s.description() == e.title);
         CHECK(s.size() >= 5);
     }
-    // Spot checks against REFERENCES.md 2.3 (Werckmeister III, standard P/4 reading; Barbour
+    // Spot checks against docs/references.md 2.3 (Werckmeister III, standard P/4 reading; Barbour
     // 1951 [M]; R. Rhodes 2001 [S]) through the written file, i.e. after .scl rounding.
     Scale w = read_scl_file(test::source_path("scales/werckmeister-iii.scl"));
     CHECK(w.degree(4).cents() == Approx(390.225).margin(0.0006));

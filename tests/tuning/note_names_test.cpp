@@ -5,7 +5,7 @@
 using namespace terzo;
 
 TEST_CASE("notes map to MIDI keys with A4 at 69 and middle C at 60", "[note_names]") {
-    // MIDI 1.0 convention, REFERENCES.md conventions line: A4 = MIDI 69, C4 = MIDI 60.
+    // MIDI 1.0 convention, docs/references.md conventions line: A4 = MIDI 69, C4 = MIDI 60.
     const SourcePos pos{"--pitch", 0, 0};
     CHECK(midi_key(parse_note("A4", pos)) == 69);
     CHECK(midi_key(parse_note("C4", pos)) == 60);
@@ -26,10 +26,10 @@ TEST_CASE("reference pitches are parsed and give equal-tempered frequencies", "[
     PitchReference baroque = parse_pitch_reference("A4=415", pos);
     CHECK(baroque.note == NoteName{9, 4});
     CHECK(baroque.hz == 415.0);
-    // REFERENCES.md section 8: twelve-TET C4 for A4 = 440 is 261.6256, for 415 is 246.7605.
+    // docs/references.md section 8: twelve-TET C4 for A4 = 440 is 261.6256, for 415 is 246.7605.
     CHECK(equal_tempered_hz({0, 4}, PitchReference{}) == Approx(261.6256).margin(1e-4));
     CHECK(equal_tempered_hz({0, 4}, baroque) == Approx(246.7605).margin(1e-4));
-    // C4 = 256 puts A4 at 430.5390 (REFERENCES.md section 8, common practice).
+    // C4 = 256 puts A4 at 430.5390 (docs/references.md section 8, common practice).
     PitchReference scientific = parse_pitch_reference("C4 = 256", pos);
     CHECK(equal_tempered_hz({9, 4}, scientific) == Approx(430.5390).margin(1e-4));
     SECTION("bad input") {

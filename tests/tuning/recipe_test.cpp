@@ -2,7 +2,7 @@
 
 #include <string>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 #include "core/tuning/recipe.hpp"
 #include "core/tuning/temperament.hpp"
 
@@ -35,7 +35,7 @@ TEST_CASE("a recipe's first word says what it builds", "[recipe]") {
 }
 
 TEST_CASE("interval expressions are exact products of rational powers", "[recipe]") {
-    // 3/2 narrowed by a quarter syntonic comma is 5^(1/4) (REFERENCES.md 2.2).
+    // 3/2 narrowed by a quarter syntonic comma is 5^(1/4) (docs/references.md 2.2).
     Scale s = build_recipe("list 3/2*S^(-1/4) (3/2)^2/2 2^(7/12) 9/8*81/80/S 2");
     REQUIRE(s.size() == 5);
     CHECK(*s.degree(1).vector() == PrimeVector::prime_power(5, Ratio(1, 4)));
@@ -43,7 +43,7 @@ TEST_CASE("interval expressions are exact products of rational powers", "[recipe
     CHECK(s.degree(3).str() == "2^(7/12)");
     CHECK(exactly_equal(s.degree(4), ratio(9, 8)) == true);
     CHECK(s.is_exact());
-    // P, S and s are the three commas of REFERENCES.md section 1.
+    // P, S and s are the three commas of docs/references.md section 1.
     Scale commas = build_recipe("list P S s P/S 2");
     CHECK(*commas.degree(1).ratio() == Ratio(531441, 524288));
     CHECK(*commas.degree(2).ratio() == Ratio(81, 80));

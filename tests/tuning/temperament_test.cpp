@@ -15,7 +15,7 @@ Pitch ratio(std::int64_t n, std::int64_t d) {
     return Pitch::from_ratio(Ratio(n, d));
 }
 
-// One row of REFERENCES.md section 2.3, "Degree cents relative to C", C first.
+// One row of docs/references.md section 2.3, "Degrees in cents above C", C first.
 using Row = std::array<double, 12>;
 
 void check_row(const std::string& recipe, const Row& expected) {
@@ -35,7 +35,7 @@ void check_row(const std::string& recipe, const Row& expected) {
 } // namespace
 
 TEST_CASE("the commas are the exact intervals of their definitions", "[temperament]") {
-    // REFERENCES.md section 1: P = 3^12/2^19 and S = 81:80 (Barbour 1951, preface [S]);
+    // docs/references.md section 1: P = 3^12/2^19 and S = 81:80 (Barbour 1951, preface [S]);
     // the schisma 32805/32768 (Ellis [M]) and the identity P - S = s (verified with Fraction).
     CHECK(*pythagorean_comma().to_ratio() == Ratio(531441, 524288));
     CHECK(*syntonic_comma().to_ratio() == Ratio(81, 80));
@@ -46,7 +46,7 @@ TEST_CASE("the commas are the exact intervals of their definitions", "[temperame
 }
 
 TEST_CASE("meantone fifths are the published sizes", "[temperament]") {
-    // REFERENCES.md 2.2: 1/4-comma fifth 696.578428 = 300*log2(5) (Aron 1523; Zarlino 1571,
+    // docs/references.md 2.2: 1/4-comma fifth 696.578428 = 300*log2(5) (Aron 1523; Zarlino 1571,
     // Salinas 1577 [M]); 1/6-comma fifth 698.370619 (Silbermann as reported by Sorge
     // [M, uncertain]); 1/3-comma 694.786238 (Salinas 1577 [M]); 2/7-comma 695.810347
     // (Zarlino 1558 [M]); 1/5-comma 697.653743 (Verheijen via Stevin, Barbour [M, uncertain]).
@@ -55,13 +55,13 @@ TEST_CASE("meantone fifths are the published sizes", "[temperament]") {
     CHECK(meantone_fifth(Ratio(1, 3)).cents() == Approx(694.786238).margin(1e-6));
     CHECK(meantone_fifth(Ratio(2, 7)).cents() == Approx(695.810347).margin(1e-6));
     CHECK(meantone_fifth(Ratio(1, 5)).cents() == Approx(697.653743).margin(1e-6));
-    // The quarter-comma fifth is exactly the fourth root of 5 (REFERENCES.md 2.2).
+    // The quarter-comma fifth is exactly the fourth root of 5 (docs/references.md 2.2).
     CHECK(meantone_fifth(Ratio(1, 4)) == PrimeVector::prime_power(5, Ratio(1, 4)));
     CHECK(meantone_fifth(Ratio(0)) == PrimeVector::from_ratio(Ratio(3, 2)));
 }
 
 TEST_CASE("historical temperaments match the degree table of REFERENCES.md 2.3", "[temperament]") {
-    // REFERENCES.md 2.3 (computed from the definitions in 2.1; cross-checked there against
+    // docs/references.md 2.3 (computed from the definitions in 2.1; cross-checked there against
     // Barbour 1951's rounded tables [M] and R. Rhodes 2001 for Werckmeister III [S]).
     check_row("chain 3/2 up 8 down 3",
               {0.000, 113.685, 203.910, 294.135, 407.820, 498.045, 611.730, 701.955, 815.640,
@@ -78,12 +78,12 @@ TEST_CASE("historical temperaments match the degree table of REFERENCES.md 2.3",
     check_row("meantone 1/6",
               {0.000, 88.594, 196.741, 304.888, 393.482, 501.629, 590.224, 698.371, 786.965,
                895.112, 1003.259, 1091.853}); // Silbermann/Sorge [M, uncertain]
-    // Werckmeister III, the standard P/4 reading (REFERENCES.md 2.5 and 9.2).
+    // Werckmeister III, the standard P/4 reading (docs/references.md 2.5 and 9.2).
     check_row("fifths from C: -P/4 -P/4 -P/4 0 0 -P/4 0 0 0 0 0 0",
               {0.000, 90.225, 192.180, 294.135, 390.225, 498.045, 588.270, 696.090, 792.180,
                888.270, 996.090, 1092.180});
     // Kirnberger III, S/4 on C-G..A-E and the schisma on F#-C# (Kirnberger's letter [S]; the
-    // schisma's place is the standard reading, REFERENCES.md 2.3).
+    // schisma's place is the standard reading, docs/references.md 2.3).
     check_row("fifths from C: -S/4 -S/4 -S/4 -S/4 0 0 -s 0 0 0 0 0",
               {0.000, 90.225, 193.157, 294.135, 386.314, 498.045, 590.224, 696.578, 792.180,
                889.735, 996.090, 1088.269});
@@ -103,7 +103,7 @@ TEST_CASE("historical temperaments match the degree table of REFERENCES.md 2.3",
 
 TEST_CASE("each comma-fraction meantone makes its defining interval exactly pure",
           "[temperament]") {
-    // REFERENCES.md 2.2, "Defining property (verified)". Degrees: 3 = Eb, 4 = E, 6 = F#, 11 = B.
+    // docs/references.md 2.2, "Defining property (verified)". Degrees: 3 = Eb, 4 = E, 6 = F#, 11 = B.
     CHECK(exactly_equal(build_recipe("meantone 1/4").degree(4), ratio(5, 4)) == true);
     CHECK(exactly_equal(build_recipe("meantone 1/3").degree(3), ratio(6, 5)) == true);
     CHECK(exactly_equal(build_recipe("meantone 1/5").degree(11), ratio(15, 8)) == true);
@@ -117,7 +117,7 @@ TEST_CASE("each comma-fraction meantone makes its defining interval exactly pure
 }
 
 TEST_CASE("the wolf of a chain Eb to G# is the published size", "[temperament]") {
-    // REFERENCES.md 2.2, column "Wolf G#-Eb"; the wolf is what 7 octaves leave to G#-Eb.
+    // docs/references.md 2.2, column "Wolf G#-Eb"; the wolf is what 7 octaves leave to G#-Eb.
     auto meantone_wolf = [](const Ratio& k) {
         FifthCircle c;
         c.start_pitch_class = 3;
@@ -145,7 +145,7 @@ TEST_CASE("the wolf of a chain Eb to G# is the published size", "[temperament]")
 }
 
 TEST_CASE("circulating temperaments close the circle exactly", "[temperament]") {
-    // REFERENCES.md 2.1: "in the circulating systems the narrowings add up to P exactly".
+    // docs/references.md 2.1: "the narrowings add up to exactly one Pythagorean comma".
     for (const char* r : {"fifths from C: -P/4 -P/4 -P/4 0 0 -P/4 0 0 0 0 0 0",
                           "fifths from C: -S/4 -S/4 -S/4 -S/4 0 0 -s 0 0 0 0 0",
                           "fifths from F: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0"}) {
@@ -162,7 +162,7 @@ TEST_CASE("circulating temperaments close the circle exactly", "[temperament]") 
 }
 
 TEST_CASE("Werckmeister III read with the syntonic comma leaves a schisma over", "[temperament]") {
-    // REFERENCES.md 2.5: "with S/4 the circle does not close (a schisma is left over)".
+    // docs/references.md 2.5: "With S/4 the circle does not close: a schisma is left over".
     FifthCircle c;
     for (int i = 0; i < 12; ++i)
         c.tempering[static_cast<std::size_t>(i)] = PrimeVector();
@@ -174,7 +174,7 @@ TEST_CASE("Werckmeister III read with the syntonic comma leaves a schisma over",
         "recipe:1:16: error: the 12 fifths do not close the circle: together they are "
         "32805/32768 (1.954 c) wider than 7 octaves; change a fifth, or write wolf for "
         "the fifth that takes up the difference");
-    // Twelve pure fifths overshoot seven octaves by the Pythagorean comma (REFERENCES.md 1).
+    // Twelve pure fifths overshoot seven octaves by the Pythagorean comma (docs/references.md 1).
     REQUIRE_THROWS_WITH(
         build_recipe("fifths: 0 0 0 0 0 0 0 0 0 0 0 0"),
         "recipe:1:9: error: the 12 fifths do not close the circle: together they are "
@@ -190,7 +190,7 @@ TEST_CASE("Werckmeister III read with the syntonic comma leaves a schisma over",
 
 TEST_CASE("the other published forms of Kirnberger III give their published degrees",
           "[temperament]") {
-    // REFERENCES.md 2.5, rational form in Kirnberger's letter [S transcription]: D 193.190,
+    // docs/references.md 2.5, rational form in Kirnberger's letter [S transcription]: D 193.190,
     // G 696.603, A 889.744, the rest as the S/4 form.
     Scale letter =
         build_recipe("fifths from C: -(324/323) -(323/322) -(321/320) -(322/321) 0 0 -s 0 0 0 0 0");
@@ -214,7 +214,7 @@ TEST_CASE("the other published forms of Kirnberger III give their published degr
 }
 
 TEST_CASE("Vallotti is Young No. 2 transposed to F", "[temperament]") {
-    // REFERENCES.md 2.3: "Vallotti on F = Young on C".
+    // docs/references.md 2.3: "Vallotti starting on F equals Young starting on C".
     Scale young =
         build_recipe("fifths from C: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0 | transpose F");
     Scale vallotti = build_recipe("fifths from F: -P/6 -P/6 -P/6 -P/6 -P/6 -P/6 0 0 0 0 0 0");
@@ -223,7 +223,7 @@ TEST_CASE("Vallotti is Young No. 2 transposed to F", "[temperament]") {
 
 TEST_CASE("equal divisions have the best fifths and thirds of the reference table",
           "[temperament]") {
-    // REFERENCES.md section 3 (common practice, recomputed there; 19: Barbour ch. VI p. 107
+    // docs/references.md section 3 (common practice, recomputed there; 19: Barbour ch. VI p. 107
     // [page S, content M]; 31: Huygens 1691 [M]; 53: Mercator/Holder, Bosanquet 1876 [M]).
     struct Case {
         int n, fifth_steps;
@@ -253,7 +253,7 @@ TEST_CASE("equal divisions have the best fifths and thirds of the reference tabl
 }
 
 TEST_CASE("13 equal divisions of 3/1 have the published step and consonances", "[temperament]") {
-    // REFERENCES.md section 3: step 146.304231 c = 3^(1/13); 3 steps 438.913, 6 steps 877.825,
+    // docs/references.md section 3: step 146.304231 c = 3^(1/13); 3 steps 438.913, 6 steps 877.825,
     // 8 steps 1170.434 (Bohlen 1978; Mathews, Pierce, Reeves & Roberts 1988 [M]).
     Scale s = build_recipe("equal 13 of 3/1");
     REQUIRE(s.size() == 13);

@@ -4,7 +4,7 @@
 
 #include <nlohmann/json.hpp>
 
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 #include "core/tuning/scale.hpp"
 
 namespace terzo {

@@ -1,7 +1,7 @@
 #include <catch2/catch.hpp>
 
 #include "../analysis/test_tunings.hpp"
-#include "core/io/compare_report.hpp"
+#include "core/report/compare_report.hpp"
 #include "xml_check.hpp"
 
 using namespace terzo;
@@ -62,7 +62,7 @@ TEST_CASE("the comparison's JSON has the documented keys", "[compare_report]") {
                                         "mean_minor_third_cents", "worst_minor_third_cents",
                                         "pure_fifths", "pure_major_thirds", "pure_minor_thirds",
                                         "wolves", "mean_fit_cents"});
-    CHECK(t["summary"]["pure_major_thirds"] == 8); // quarter-comma, REFERENCES.md 2.2
+    CHECK(t["summary"]["pure_major_thirds"] == 8); // quarter-comma, docs/references.md 2.2
     CHECK(keys_of(t["summary"]["wolves"][0]) == Keys{"interval", "notes", "deviation_cents"});
     CHECK(keys_of(t["interval_classes"][0]) == Keys{"steps", "sizes"});
     CHECK(keys_of(t["interval_classes"][0]["sizes"][0]) ==
@@ -75,7 +75,7 @@ TEST_CASE("the summary and wolves tables name the quarter-comma wolf", "[compare
     auto list = two();
     Table s = summary_table(list);
     REQUIRE(s.rows.size() == 2);
-    // 12-TET: REFERENCES.md section 1, fifths -1.955, major thirds +13.686, minor -15.641.
+    // 12-TET: docs/references.md section 1, fifths -1.955, major thirds +13.686, minor -15.641.
     CHECK(s.rows[0] == Keys{"et.scl", "1.955", "1.955", "13.686", "13.686", "15.641", "15.641", "0",
                             "0", "0", ""});
     CHECK(s.rows[1][8] == "8");
@@ -85,7 +85,7 @@ TEST_CASE("the summary and wolves tables name the quarter-comma wolf", "[compare
         if (r[1] == "fifth") {
             wolf_fifth = true;
             CHECK(r[2] == "G#-Eb");
-            CHECK(r[3] == "+35.682"); // 737.637287 - 701.955001, REFERENCES.md 2.2
+            CHECK(r[3] == "+35.682"); // 737.637287 - 701.955001, docs/references.md 2.2
         }
     CHECK(wolf_fifth);
     CHECK(w.rows.size() == 8); // 1 fifth, 4 diminished fourths, 3 augmented seconds
@@ -95,7 +95,7 @@ TEST_CASE("key and class tables carry the per-key numbers", "[compare_report]") 
     auto list = two();
     Table k = key_table(*list[0].keys, Spelling::mixed);
     CHECK(k.header.size() == 8); // no fit column when fits were not computed
-    // C4-G4 0.8858 and C4-E4 10.3824 beats/s at A4 = 440, REFERENCES.md section 4.
+    // C4-G4 0.8858 and C4-E4 10.3824 beats/s at A4 = 440, docs/references.md section 4.
     CHECK(k.rows[0] ==
           Keys{"C major", "C4 E4 G4", "-1.955", "0.89", "+13.686", "10.38", "-15.641", "17.79"});
     Table longt = keys_long_table(list, Spelling::mixed);

@@ -2,7 +2,7 @@
 
 #include <sstream>
 
-#include "core/io/scale_report.hpp"
+#include "core/report/scale_report.hpp"
 
 using namespace terzo;
 

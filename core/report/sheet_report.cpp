@@ -1,10 +1,10 @@
-#include "core/io/sheet_report.hpp"
+#include "core/report/sheet_report.hpp"
 
 #include <algorithm>
 #include <cmath>
 
-#include "core/io/format.hpp"
-#include "core/io/scale_report.hpp"
+#include "core/format.hpp"
+#include "core/report/scale_report.hpp"
 
 namespace terzo {
 

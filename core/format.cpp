@@ -1,4 +1,4 @@
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 #include <cmath>
 #include <cstdio>

@@ -1,6 +1,6 @@
-#include "core/io/scale_report.hpp"
+#include "core/report/scale_report.hpp"
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 namespace terzo {
 

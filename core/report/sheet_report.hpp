@@ -7,8 +7,8 @@
 #include <string>
 
 #include "core/analysis/sheet.hpp"
-#include "core/io/svg.hpp"
-#include "core/io/table.hpp"
+#include "core/report/svg.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo {
 

@@ -1,6 +1,6 @@
 #include <catch2/catch.hpp>
 
-#include "core/io/svg.hpp"
+#include "core/report/svg.hpp"
 #include "xml_check.hpp"
 
 using namespace terzo;

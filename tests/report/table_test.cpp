@@ -2,7 +2,7 @@
 
 #include <sstream>
 
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 
 using terzo::Table;
 

@@ -1,4 +1,4 @@
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 
 #include <charconv>
 #include <cmath>

@@ -9,8 +9,8 @@
 #include <vector>
 
 #include "core/analysis/compare.hpp"
-#include "core/io/svg.hpp"
-#include "core/io/table.hpp"
+#include "core/report/svg.hpp"
+#include "core/report/table.hpp"
 
 namespace terzo {
 

@@ -4,7 +4,7 @@
 
 #include <sstream>
 
-#include "core/io/scl.hpp"
+#include "core/tuning/scl.hpp"
 
 using namespace terzo;
 
@@ -20,7 +20,7 @@ std::string write(const Scale& s) {
 }
 } // namespace
 
-// The example file and the expected values are REFERENCES.md section 7 ("an invented
+// The example file and the expected values are docs/references.md section 7 ("an invented
 // scenario"; the format rules there are from memory [M], checked with a separate parser).
 const char* workshop_bells = "! workshop-bells.scl\n"
                              "!\n"
@@ -52,7 +52,7 @@ TEST_CASE("a .scl file with ratios, cents, labels and comments is read", "[scl]"
 }
 
 TEST_CASE("the edge cases of the format are read as the format says", "[scl]") {
-    // REFERENCES.md section 7, edge-cases.scl: empty description, negative cents, integer ratio.
+    // docs/references.md section 7, edge-cases.scl: empty description, negative cents, integer ratio.
     Scale s = read("! edge-cases.scl\n!\n\n   3\n-5.0\n3\n 81/80 !trailing text after the value is ignored\n");
     CHECK(s.description().empty());
     REQUIRE(s.size() == 3);

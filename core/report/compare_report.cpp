@@ -1,11 +1,11 @@
-#include "core/io/compare_report.hpp"
+#include "core/report/compare_report.hpp"
 
 #include <algorithm>
 #include <cmath>
 
-#include "core/io/format.hpp"
-#include "core/io/scale_report.hpp"
-#include "core/io/sheet_report.hpp"
+#include "core/format.hpp"
+#include "core/report/scale_report.hpp"
+#include "core/report/sheet_report.hpp"
 
 namespace terzo {
 

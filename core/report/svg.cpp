@@ -1,4 +1,4 @@
-#include "core/io/svg.hpp"
+#include "core/report/svg.hpp"
 
 #include <cmath>
 #include <cstdio>

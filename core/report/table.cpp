@@ -1,4 +1,4 @@
-#include "core/io/table.hpp"
+#include "core/report/table.hpp"
 
 #include <algorithm>
 

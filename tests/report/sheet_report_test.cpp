@@ -3,7 +3,7 @@
 #include <sstream>
 
 #include "../analysis/test_tunings.hpp"
-#include "core/io/sheet_report.hpp"
+#include "core/report/sheet_report.hpp"
 #include "xml_check.hpp"
 
 using namespace terzo;
@@ -56,7 +56,7 @@ TEST_CASE("the notes table puts each note's rising intervals beside it", "[sheet
     CHECK(t.header ==
           Keys{"note", "degree", "Hz", "vs 12-TET", "5th up", "4th up", "M3 up", "m3 up", "M6 up"});
     REQUIRE(t.rows.size() == 13);
-    // F3: 174.614 Hz, 12-TET rates from REFERENCES.md section 4 (F3-C4 0.5912, F3-Bb3 0.7892,
+    // F3: 174.614 Hz, 12-TET rates from docs/references.md section 4 (F3-C4 0.5912, F3-Bb3 0.7892,
     // F3-A3 6.9294, F3-Ab3 9.4230, F3-D4 7.9237).
     CHECK(t.rows[0] == Keys{"F3", "5", "174.614", "0.00", "0.59 narrow", "0.79 wide", "6.93 wide",
                             "9.42 narrow", "7.92 wide"});
@@ -78,7 +78,7 @@ TEST_CASE("the order and interval tables read as a tuner's steps", "[sheet_repor
     Sheet g = make_sheet(test::werckmeister_3(), wide, "w3");
     Table i = sheet_intervals_table(g);
     CHECK(i.rows.size() == g.intervals.size());
-    // C4-G4 in Werckmeister III: 2.6725 beats/s (REFERENCES.md section 4 [C]).
+    // C4-G4 in Werckmeister III: 2.6725 beats/s (docs/references.md section 4 [C]).
     bool found = false;
     for (const auto& r : i.rows)
         if (r[0] == "fifth" && r[1] == "C4") {

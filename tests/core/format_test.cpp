@@ -2,7 +2,7 @@
 
 #include <cmath>
 
-#include "core/io/format.hpp"
+#include "core/format.hpp"
 
 TEST_CASE("numbers are printed with fixed decimals and no negative zero", "[format]") {
     CHECK(terzo::fixed(701.955001, 3) == "701.955");

@@ -1,0 +1,2 @@
+// Fixture for the core/layers_catches_upward test.
+#pragma once
