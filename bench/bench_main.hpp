@@ -29,9 +29,10 @@ public:
     }
 };
 
-inline int run_with_ratios(int argc, char** argv, const std::vector<RatioSpec>& ratios) {
+/// Runs the benchmarks through `reporter` (a CollectingReporter or one derived from it).
+inline int run_with_ratios(int argc, char** argv, const std::vector<RatioSpec>& ratios,
+                           CollectingReporter& reporter) {
     benchmark::Initialize(&argc, argv);
-    CollectingReporter reporter;
     const CpuTicks before = machine_cpu_ticks();
     benchmark::RunSpecifiedBenchmarks(&reporter);
     print_steal_since(before);
@@ -46,6 +47,11 @@ inline int run_with_ratios(int argc, char** argv, const std::vector<RatioSpec>& 
     }
     benchmark::Shutdown();
     return 0;
+}
+
+inline int run_with_ratios(int argc, char** argv, const std::vector<RatioSpec>& ratios) {
+    CollectingReporter reporter;
+    return run_with_ratios(argc, argv, ratios, reporter);
 }
 
 } // namespace terzo::bench

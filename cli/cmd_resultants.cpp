@@ -1,4 +1,5 @@
 #include <iostream>
+#include <optional>
 
 #include "cli/commands.hpp"
 #include "cli/text_output.hpp"
@@ -18,7 +19,7 @@ void add_resultants(CLI::App& app) {
         int partials = 1;
         double pitch_floor = 0.0;
         std::string chord;
-        bool json = false, csv = false;
+        bool json = false, pretty = false, csv = false;
     };
     auto a = std::make_shared<Args>();
     cmd->add_option("TUNING", a->tuning, tuning_help)->required();
@@ -28,9 +29,11 @@ void add_resultants(CLI::App& app) {
     cmd->add_option("--partials", a->partials, "Harmonics per note, 1 to 32 (default 1: pure tones)");
     cmd->add_option("--pitch-floor", a->pitch_floor, "Leave tones below this many Hz out of the fit (default 0: count every tone; 20 is the lower limit of pitch perception)");
     auto* chord = cmd->add_option("--chord", a->chord, "A chord instead of every dyad: degree numbers or ratios, e.g. 0,4,7 or 1/1,5/4,3/2");
-    auto* json = cmd->add_flag("--json", a->json, "Print one JSON object (keys listed in docs/formats.md)");
+    auto* json = cmd->add_flag("--json", a->json, "Print one JSON object, compact (keys listed in docs/formats.md)");
+    auto* pretty = cmd->add_flag("--pretty", a->pretty, "With --json: indent the JSON two spaces per level");
     auto* csv = cmd->add_flag("--csv", a->csv, "Print one CSV row per tone");
     json->excludes(csv);
+    pretty->needs(json);
     cmd->callback([a, chord] {
         // Options first, so a mistyped number is reported before the tuning is read.
         ToneOptions opt;
@@ -46,25 +49,29 @@ void add_resultants(CLI::App& app) {
             scale = Scale(printable(scale.description()),
                           std::vector<Pitch>(scale.degrees().begin() + 1, scale.degrees().end()), scale.period());
         Keyboard kb(std::move(scale), a->ref_hz, a->span, a->tuning);
-        ResultantsReport r;
-        r.keyboard = &kb;
-        r.options = opt;
+        std::optional<std::vector<Note>> notes;
+        std::optional<CommonBass> bass;
         if (chord->count() > 0) { // also --chord "", which parse_chord rejects
-            r.chord = parse_chord(a->chord, kb, {"--chord"});
-            r.dyads = chord_tones(kb, *r.chord, opt);
-            r.bass = common_bass(kb, *r.chord);
-        } else {
-            r.dyads = keyboard_tones(kb, opt);
+            notes = parse_chord(a->chord, kb, {"--chord"});
+            bass = common_bass(kb, *notes);
         }
-        r.fit = fit(r.dyads, fit_options);
-        // Everything that can fail has run; the report is written straight out, dyad by dyad,
-        // so up to max_tones tones never need a second copy as one string or JSON tree.
-        if (a->json)
-            write_resultants_json(std::cout, r);
-        else if (a->csv)
-            write_tones_csv(std::cout, r.dyads);
+        const ResultantsFormat format = a->json   ? (a->pretty ? ResultantsFormat::json_pretty : ResultantsFormat::json)
+                                        : a->csv  ? ResultantsFormat::csv
+                                                  : ResultantsFormat::text;
+        // The report streams: each dyad is written as the engine produces it and then
+        // forgotten, so memory stays flat up to max_tones tones. The options and the tone
+        // count are checked before the first dyad, so a refused request writes nothing.
+        ResultantsWriter out(std::cout, format, kb, opt, notes ? &*notes : nullptr, bass ? &*bass : nullptr);
+        FitSum fit(fit_options);
+        auto visit = [&](const DyadTones& d) {
+            out.dyad(d);
+            fit.add(d);
+        };
+        if (notes)
+            for_each_chord_dyad(kb, *notes, opt, visit);
         else
-            write_resultants_text(std::cout, r);
+            for_each_keyboard_dyad(kb, opt, visit);
+        out.finish(fit.result());
     });
 }
 

@@ -113,21 +113,20 @@ void select_notes(App& app, std::vector<int> notes) {
 
 namespace {
 
-// Every dyad of the keyboard, low note below high note, as keyboard_tones orders them, with a
-// check of `cancel` between dyads; nullopt when cancelled.
+// The whole-keyboard fit of the resultant engine, checking `cancel` between dyads; nullopt
+// when cancelled (the engine's own limits and their messages apply as in the CLI).
+struct FitCancelled {};
 std::optional<Fit> cancellable_keyboard_fit(const Keyboard& kb, const ToneOptions& options, const std::atomic<bool>& cancel) {
-    const auto& notes = kb.notes();
-    const std::uint64_t n = notes.size();
-    check_options(options);
-    check_tone_count(n * (n - 1) / 2, options); // the CLI's limit, said the same way
-    std::vector<DyadTones> dyads;
-    dyads.reserve(n * (n - 1) / 2);
-    for (std::size_t i = 0; i < notes.size(); ++i)
-        for (std::size_t j = i + 1; j < notes.size(); ++j) {
-            if (cancel.load(std::memory_order_relaxed)) return std::nullopt;
-            dyads.push_back({notes[i], notes[j], dyad_tones(kb, notes[i], notes[j], options)});
-        }
-    return fit(dyads);
+    FitSum sum;
+    try {
+        for_each_keyboard_dyad(kb, options, [&](const DyadTones& d) {
+            if (cancel.load(std::memory_order_relaxed)) throw FitCancelled{};
+            sum.add(d);
+        });
+    } catch (const FitCancelled&) {
+        return std::nullopt;
+    }
+    return sum.result();
 }
 
 void poll_background(App& app) {

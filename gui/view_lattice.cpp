@@ -328,7 +328,7 @@ void draw_lattice_view(App& app) {
         ImGui::Text("%s (%d, %d)", t.term.name().c_str(), t.term.a, t.term.b);
         if (t.low_partial != 1 || t.high_partial != 1) ImGui::Text("between partials %d and %d", t.low_partial, t.high_partial);
         ImGui::Text("of %s and %s", note_label(kb, hovered_dyad->low.degree, hovered_dyad->low.period).c_str(), note_label(kb, hovered_dyad->high.degree, hovered_dyad->high.period).c_str());
-        auto exact = t.exact_value();
+        auto exact = exact_value(*hovered_dyad, t);
         ImGui::Text("ratio to degree 0: %s", exact ? exact->str().c_str() : ("~" + fixed(t.cents, 3) + " c").c_str());
         ImGui::Text("%s Hz", fixed(t.hz, 3).c_str());
         ImGui::Text("lands on %s: %s", note_label(kb, t.landing.degree, t.landing.period).c_str(), t.landing.exact ? "exactly" : (signed_fixed(t.landing.deviation_cents, 3) + " c").c_str());

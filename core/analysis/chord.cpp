@@ -78,18 +78,28 @@ std::vector<Note> parse_chord(const std::string& text, const Keyboard& kb, const
     return notes;
 }
 
-std::vector<DyadTones> chord_tones(const Keyboard& kb, const std::vector<Note>& chord,
-                                   const ToneOptions& options) {
+void for_each_chord_dyad(const Keyboard& kb, const std::vector<Note>& chord, const ToneOptions& options,
+                         const std::function<void(const DyadTones&)>& visit) {
     check_options(options);
     std::vector<Note> notes = chord;
     std::stable_sort(notes.begin(), notes.end(), [](const Note& x, const Note& y) { return x.cents < y.cents; });
     check_tone_count(notes.size() * (notes.size() - 1) / 2, options);
-    std::vector<DyadTones> out;
+    const ResultantEngine engine(kb, options);
+    DyadTones dyad;
     for (std::size_t i = 0; i < notes.size(); ++i)
         for (std::size_t j = i + 1; j < notes.size(); ++j) {
             if (notes[i].cents == notes[j].cents) continue;
-            out.push_back({notes[i], notes[j], dyad_tones(kb, notes[i], notes[j], options)});
+            dyad.low = notes[i];
+            dyad.high = notes[j];
+            engine.tones(notes[i], notes[j], dyad.tones);
+            visit(dyad);
         }
+}
+
+std::vector<DyadTones> chord_tones(const Keyboard& kb, const std::vector<Note>& chord,
+                                   const ToneOptions& options) {
+    std::vector<DyadTones> out;
+    for_each_chord_dyad(kb, chord, options, [&](const DyadTones& d) { out.push_back(d); });
     return out;
 }
 

@@ -24,7 +24,13 @@ inline constexpr int max_bass_multiple = 64;
 std::vector<Note> parse_chord(const std::string& text, const Keyboard& keyboard,
                               const SourcePos& pos);
 
-/// The tones of every pair of chord notes, lower note first.
+/// Calls visit(dyad) for every pair of chord notes, lower note first (pairs by the notes'
+/// order in pitch), one at a time in a reused DyadTones. Throws InputError before the first
+/// visit when the options are out of range or the request would exceed max_tones.
+void for_each_chord_dyad(const Keyboard& keyboard, const std::vector<Note>& chord,
+                         const ToneOptions& options, const std::function<void(const DyadTones&)>& visit);
+
+/// The tones of every pair of chord notes, lower note first, kept.
 std::vector<DyadTones> chord_tones(const Keyboard& keyboard, const std::vector<Note>& chord,
                                    const ToneOptions& options);
 

@@ -33,11 +33,28 @@ Ratio::Big to_big(i128 v) {
 // and far below any musically meaningful difference. It only decides where exact
 // arithmetic is consulted: the decision itself is always exact.
 constexpr double exact_path_error_cents = 1e-7;
+// The tempered fast path's cents (the low note's cents plus a logarithm) err by far less than
+// this; closer tones take the exact path of landing(Keyboard, Pitch).
+constexpr double tempered_error_cents = 1e-6;
+
+Ratio make_ratio(i128 num, std::int64_t den) {
+    if (fits64(num)) return Ratio(std::int64_t(num), den);
+    return Ratio::from_big(to_big(num), Ratio::Big(den));
+}
+
+double to_double(i128 v) { return fits64(v) ? double(std::int64_t(v)) : double(v); }
+
+double cents_of(double hz, double ref_hz) { return 1200.0 * std::log2(hz / ref_hz); }
+
+using Plan = DyadExact::Plan;
+
+} // namespace
 
 // How the tones of one dyad get exact values.
 //  - rational_small: both notes rational with 64-bit parts. Over the common denominator L
 //    the notes are Nl/L and Nh/L, so a tone is (A*Nl + B*Nh)/L: two integer products and a
-//    sum in 128 bits per tone, one gcd to reduce, and the sign decided exactly.
+//    sum in 128 bits per tone, the sign decided exactly, and equality with a note decided
+//    by cross-multiplying (no gcd, no Ratio) on the rare tones that are near one.
 //  - rational_big: rational notes with huge parts; Ratio arithmetic (cpp_int when needed).
 //  - tempered: exact notes whose ratio q = f_high/f_low is rational (an octave of a tempered
 //    scale, or any dyad of a scale built on one tempered generator and rational steps).
@@ -51,143 +68,293 @@ constexpr double exact_path_error_cents = 1e-7;
 //    with a, b non-zero can never equal an exact note f: it would give a rational relation
 //    between 1, q and f/f_low, and a rational relation with two terms forces q or the note
 //    ratio to be rational. Such a tone's landing is therefore correctly never exact.
-enum class Plan { rational_small, rational_big, tempered, none };
-
-struct DyadPlan {
-    Plan plan = Plan::none;
-    std::int64_t nl = 0, nh = 0, den = 1; // rational_small
-    Ratio rl, rh;                         // rational_big
-    PrimeVector low_vector;               // tempered
-    Ratio q;                              // tempered
-};
-
-DyadPlan make_plan(const Note& low, const Note& high, bool exact) {
-    DyadPlan d;
-    if (!exact) return d;
-    auto rl = low.pitch.ratio(), rh = high.pitch.ratio();
-    if (rl && rh) {
-        if (rl->is_small() && rh->is_small()) {
-            std::int64_t g = std::gcd(rl->den(), rh->den());
-            i128 den = i128(rl->den() / g) * rh->den();
-            i128 nl = i128(rl->num()) * (den / rl->den());
-            i128 nh = i128(rh->num()) * (den / rh->den());
-            if (fits64(den) && fits64(nl) && fits64(nh)) {
-                d.plan = Plan::rational_small;
-                d.nl = std::int64_t(nl);
-                d.nh = std::int64_t(nh);
-                d.den = std::int64_t(den);
-                return d;
+DyadExact::DyadExact(const Note& low, const Note& high, bool exact) {
+    if (!exact) return;
+    auto l = low.pitch.ratio(), h = high.pitch.ratio();
+    if (l && h) {
+        if (l->is_small() && h->is_small()) {
+            std::int64_t g = std::gcd(l->den(), h->den());
+            i128 d = i128(l->den() / g) * h->den();
+            i128 a = i128(l->num()) * (d / l->den());
+            i128 b = i128(h->num()) * (d / h->den());
+            if (fits64(d) && fits64(a) && fits64(b)) {
+                plan = Plan::rational_small;
+                nl = std::int64_t(a);
+                nh = std::int64_t(b);
+                den = std::int64_t(d);
+                return;
             }
         }
-        d.plan = Plan::rational_big;
-        d.rl = *rl;
-        d.rh = *rh;
-        return d;
+        plan = Plan::rational_big;
+        rl = *l;
+        rh = *h;
+        return;
     }
     if (low.pitch.is_exact() && high.pitch.is_exact()) {
-        Pitch q = high.pitch / low.pitch;
+        Pitch r = high.pitch / low.pitch;
         auto lv = low.pitch.vector();
-        if (q.is_rational() && lv) {
-            d.plan = Plan::tempered;
-            d.q = *q.ratio();
-            d.low_vector = *lv;
+        if (r.is_rational() && lv) {
+            plan = Plan::tempered;
+            q = *r.ratio();
+            low_vector = *lv;
         }
     }
-    return d;
 }
 
-Ratio make_ratio(i128 num, std::int64_t den) {
-    if (fits64(num)) return Ratio(std::int64_t(num), den);
-    return Ratio::from_big(to_big(num), Ratio::Big(den));
+namespace {
+
+// The tempered plan's multiplier a + b*q, as a Ratio.
+Ratio tempered_multiplier(const DyadExact& x, std::int64_t A, std::int64_t B) {
+    return Ratio(A) + Ratio(B) * x.q;
 }
 
-double cents_of(double hz, double ref_hz) { return 1200.0 * std::log2(hz / ref_hz); }
+} // namespace
 
-// The tones of one dyad; `terms` is combination_terms(options.order).
-std::vector<Tone> tones_of(const Keyboard& kb, const Note& low, const Note& high,
-                           const ToneOptions& options, const std::vector<CombinationTerm>& terms) {
-    const DyadPlan plan = make_plan(low, high, options.exact);
+std::optional<Pitch> DyadExact::value(const Tone& tone) const {
+    if (tone.exact == ExactKind::none) return std::nullopt;
+    if (auto r = ratio(tone)) return Pitch::from_ratio(*r);
+    if (plan != Plan::tempered) return std::nullopt;
+    const std::int64_t A = std::int64_t(tone.term.a) * tone.low_partial;
+    const std::int64_t B = std::int64_t(tone.term.b) * tone.high_partial;
+    return Pitch::from_vector(low_vector * PrimeVector::from_ratio(tempered_multiplier(*this, A, B)));
+}
+
+std::optional<Ratio> DyadExact::ratio(const Tone& tone) const {
+    if (tone.exact != ExactKind::ratio) return std::nullopt;
+    const std::int64_t A = std::int64_t(tone.term.a) * tone.low_partial;
+    const std::int64_t B = std::int64_t(tone.term.b) * tone.high_partial;
+    switch (plan) {
+    case Plan::rational_small: return make_ratio(i128(A) * nl + i128(B) * nh, den);
+    case Plan::rational_big: return Ratio(A) * rl + Ratio(B) * rh;
+    case Plan::tempered: {
+        Pitch p = Pitch::from_vector(low_vector * PrimeVector::from_ratio(tempered_multiplier(*this, A, B)));
+        return p.ratio();
+    }
+    case Plan::none: break;
+    }
+    return std::nullopt;
+}
+
+std::string DyadExact::text(const Tone& tone) const {
+    if (tone.exact == ExactKind::ratio) return ratio(tone)->str();
+    if (auto v = value(tone)) return v->str();
+    return "-";
+}
+
+std::optional<Pitch> exact_value(const DyadTones& dyad, const Tone& tone) {
+    return DyadExact(dyad.low, dyad.high).value(tone);
+}
+
+std::optional<Ratio> exact_ratio(const DyadTones& dyad, const Tone& tone) {
+    return DyadExact(dyad.low, dyad.high).ratio(tone);
+}
+
+// What the engine prepares once per keyboard and options.
+struct ResultantEngine::Tables {
+    std::vector<CombinationTerm> terms;
+    std::vector<std::size_t> order_start; // terms of order k: [order_start[k-2], order_start[k-1])
+    NoteFinder finder;
+    // Note ratios num/den of the rational notes in periods [low_period, low_period + periods),
+    // filled on first use: den 0 unknown yet, den -1 not rational or not 64-bit.
+    static constexpr int low_period = -48, periods = 112;
+    mutable std::vector<std::pair<std::int64_t, std::int64_t>> note_ratios;
+
+    // With a rational period, note (d, p) is degree d times a rational power, so whether two
+    // notes have a rational ratio depends on their degrees alone: -1 unknown yet, 0 no, 1 yes
+    // (degree pairs, for scales of at most max_pair_degrees; empty otherwise).
+    static constexpr std::size_t max_pair_degrees = 256;
+    mutable std::vector<signed char> degree_pairs;
+    std::vector<bool> rational_degree;
+
+    Tables(const Keyboard& kb, int order) : terms(combination_terms(order)), finder(kb) {
+        order_start.push_back(0);
+        for (std::size_t i = 0; i < terms.size(); ++i)
+            if (i + 1 == terms.size() || terms[i + 1].order() != terms[i].order()) order_start.push_back(i + 1);
+        const Scale& s = kb.scale();
+        if (s.period().is_rational() && s.size() <= max_pair_degrees) {
+            degree_pairs.assign(s.size() * s.size(), -1);
+            for (std::size_t d = 0; d < s.size(); ++d) rational_degree.push_back(s.degree(d).is_rational());
+        }
+    }
+
+    // The plan of the dyad low < high. Tempered dyads whose ratio is irrational (most dyads of
+    // an equal division) are told apart by the degree-pair table, without dividing pitches.
+    DyadExact plan(const Keyboard& kb, const Note& low, const Note& high, bool exact) const {
+        if (!exact) return {};
+        if (!degree_pairs.empty() && low.on_scale && high.on_scale) {
+            const std::size_t l = std::size_t(low.degree), h = std::size_t(high.degree);
+            if (!(rational_degree[l] && rational_degree[h])) {
+                signed char& known = degree_pairs[l * rational_degree.size() + h];
+                if (known < 0) {
+                    const Scale& s = kb.scale();
+                    known = s.degree(l).is_exact() && s.degree(h).is_exact() &&
+                            (s.degree(h) / s.degree(l)).is_rational();
+                }
+                if (!known) return {};
+            }
+        }
+        return DyadExact(low, high);
+    }
+
+    // The note's ratio in 64 bits when cached or cacheable, else nullptr.
+    const std::pair<std::int64_t, std::int64_t>* note_ratio(const Keyboard& kb, int degree, int period) const {
+        const int p = period - low_period;
+        if (p < 0 || p >= periods) return nullptr;
+        if (note_ratios.empty()) note_ratios.assign(std::size_t(periods) * kb.scale().size(), {0, 0});
+        auto& slot = note_ratios[std::size_t(p) * kb.scale().size() + std::size_t(degree)];
+        if (slot.second == 0) {
+            auto r = kb.note_ratio(degree, period);
+            slot = r && r->is_small() ? std::pair{r->num(), r->den()} : std::pair<std::int64_t, std::int64_t>{0, -1};
+        }
+        return slot.second > 0 ? &slot : nullptr;
+    }
+};
+
+namespace {
+
+// The landing of the rational tone n/den (cents in floating point) whose neighbours `a` are
+// within rounding error: as landing(Keyboard, double, Ratio, double) decides it, but by
+// cross-multiplying with the notes' cached 64-bit ratios (no gcd, no Ratio) where they fit.
+Landing exact_landing(const Keyboard& kb, const ResultantEngine::Tables& tb, const NoteFinder::Around& a,
+                      double cents, i128 n, std::int64_t den) {
+    for (const Landing* l : {&a.nearer, &a.other}) {
+        if (!(std::fabs(l->deviation_cents) <= exact_path_error_cents)) continue;
+        const auto* r = tb.note_ratio(kb, l->degree, l->period);
+        i128 x, y;
+        if (!r || __builtin_mul_overflow(n, i128(r->second), &x) ||
+            __builtin_mul_overflow(i128(r->first), i128(den), &y))
+            return landing(kb, cents, make_ratio(n, den), exact_path_error_cents);
+        if (x == y) {
+            Landing exact = *l;
+            exact.exact = true;
+            exact.deviation_cents = 0.0;
+            return exact;
+        }
+    }
+    return a.nearer;
+}
+
+} // namespace
+
+ResultantEngine::ResultantEngine(const Keyboard& keyboard, const ToneOptions& options)
+    : keyboard_(&keyboard), options_(options) {
+    check_options(options);
+    tables_ = std::make_unique<Tables>(keyboard, options.order);
+}
+
+ResultantEngine::~ResultantEngine() = default;
+
+void ResultantEngine::tones(const Note& low, const Note& high, std::vector<Tone>& out) const {
+    const Keyboard& kb = *keyboard_;
+    const Tables& tb = *tables_;
+    const DyadExact plan = tb.plan(kb, low, high, options_.exact);
     const double fl = low.hz, fh = high.hz, ref = kb.ref_hz();
-    std::vector<Tone> out;
-    std::vector<Tone> block;
-    std::vector<std::size_t> order_index;
-    out.reserve(terms.size() * std::size_t(options.partials) * std::size_t(options.partials));
-    block.reserve(terms.size());
-    for (int i = 1; i <= options.partials; ++i) {
-        for (int j = 1; j <= options.partials; ++j) {
-            block.clear();
-            for (const CombinationTerm& t : terms) {
-                const std::int64_t A = std::int64_t(t.a) * i, B = std::int64_t(t.b) * j;
-                Tone tone;
-                tone.term = t;
-                tone.low_partial = i;
-                tone.high_partial = j;
-                switch (plan.plan) {
-                case Plan::rational_small: {
-                    i128 n = i128(A) * plan.nl + i128(B) * plan.nh;
-                    if (n <= 0) continue;
-                    double r = double(n) / double(plan.den);
-                    tone.hz = ref * r;
-                    tone.cents = 1200.0 * std::log2(r);
-                    tone.ratio = make_ratio(n, plan.den);
-                    tone.landing = landing(kb, tone.cents, *tone.ratio, exact_path_error_cents);
-                    break;
-                }
-                case Plan::rational_big: {
-                    Ratio r = Ratio(A) * plan.rl + Ratio(B) * plan.rh;
-                    if (r.sign() <= 0) continue;
-                    tone.cents = 1200.0 * static_cast<double>(r.log2());
-                    tone.hz = ref * std::exp2(tone.cents / 1200.0);
-                    tone.landing = landing(kb, tone.cents, r, exact_path_error_cents);
-                    tone.ratio = std::move(r);
-                    break;
-                }
-                case Plan::tempered: {
-                    Ratio m = Ratio(A) + Ratio(B) * plan.q;
-                    if (m.sign() <= 0) continue;
-                    if (!m.is_small()) { // not factorable cheaply: fall back to floating point
-                        tone.hz = A * fl + B * fh;
-                        tone.cents = cents_of(tone.hz, ref);
-                        tone.landing = nearest_note(kb, tone.cents);
+    const double den = double(plan.den);
+    out.clear();
+    out.reserve(tb.terms.size() * std::size_t(options_.partials) * std::size_t(options_.partials));
+
+
+    for (int i = 1; i <= options_.partials; ++i) {
+        for (int j = 1; j <= options_.partials; ++j) {
+            for (std::size_t k = 0; k + 1 < tb.order_start.size(); ++k) {
+                const std::size_t block = out.size();
+                for (std::size_t t = tb.order_start[k]; t < tb.order_start[k + 1]; ++t) {
+                    const CombinationTerm term = tb.terms[t];
+                    const std::int64_t A = std::int64_t(term.a) * i, B = std::int64_t(term.b) * j;
+                    Tone tone;
+                    tone.term = term;
+                    tone.low_partial = i;
+                    tone.high_partial = j;
+                    switch (plan.plan) {
+                    case Plan::rational_small: {
+                        const i128 n = i128(A) * plan.nl + i128(B) * plan.nh;
+                        if (n <= 0) continue;
+                        const double r = to_double(n) / den;
+                        tone.hz = ref * r;
+                        tone.cents = 1200.0 * std::log2(r);
+                        tone.exact = ExactKind::ratio;
+                        const NoteFinder::Around a = tb.finder.around(tone.cents);
+                        tone.landing = a.nearer;
+                        if (std::fabs(a.nearer.deviation_cents) <= exact_path_error_cents ||
+                            std::fabs(a.other.deviation_cents) <= exact_path_error_cents)
+                            tone.landing = exact_landing(kb, tb, a, tone.cents, n, plan.den);
                         break;
                     }
-                    Pitch p = Pitch::from_vector(plan.low_vector * PrimeVector::from_ratio(m));
-                    tone.cents = p.cents();
-                    tone.hz = ref * std::exp2(tone.cents / 1200.0);
-                    tone.landing = landing(kb, p);
-                    if (auto r = p.ratio())
-                        tone.ratio = *r;
-                    else
-                        tone.vector = p.vector();
-                    break;
+                    case Plan::rational_big: {
+                        Ratio r = Ratio(A) * plan.rl + Ratio(B) * plan.rh;
+                        if (r.sign() <= 0) continue;
+                        tone.cents = 1200.0 * static_cast<double>(r.log2());
+                        tone.hz = ref * std::exp2(tone.cents / 1200.0);
+                        tone.landing = landing(kb, tone.cents, r, exact_path_error_cents);
+                        tone.exact = ExactKind::ratio;
+                        break;
+                    }
+                    case Plan::tempered: {
+                        // The tone is f_low * m with m = A + B*q rational. With q in 64 bits, m's
+                        // sign and size come from one 128-bit sum and floating point finds the
+                        // nearest note; the exact value (a prime vector) is built only when the
+                        // tone is within rounding error of a note. It is never rational: f_low
+                        // is not (else both notes would be, and the plan rational).
+                        if (plan.q.is_small()) {
+                            const i128 mn = i128(A) * plan.q.den() + i128(B) * plan.q.num();
+                            if (mn <= 0) continue;
+                            if (fits64(mn)) {
+                                const double c = low.cents + 1200.0 * std::log2(double(std::int64_t(mn)) /
+                                                                                double(plan.q.den()));
+                                const NoteFinder::Around a = tb.finder.around(c);
+                                if (std::fabs(a.nearer.deviation_cents) > tempered_error_cents &&
+                                    std::fabs(a.other.deviation_cents) > tempered_error_cents) {
+                                    tone.cents = c;
+                                    tone.hz = ref * std::exp2(c / 1200.0);
+                                    tone.landing = a.nearer;
+                                    tone.exact = ExactKind::vector;
+                                    break;
+                                }
+                            }
+                        }
+                        Ratio m = tempered_multiplier(plan, A, B);
+                        if (m.sign() <= 0) continue;
+                        if (!m.is_small()) { // not factorable cheaply: fall back to floating point
+                            tone.hz = A * fl + B * fh;
+                            tone.cents = cents_of(tone.hz, ref);
+                            tone.landing = nearest_note(kb, tone.cents);
+                            break;
+                        }
+                        Pitch p = Pitch::from_vector(plan.low_vector * PrimeVector::from_ratio(m));
+                        tone.cents = p.cents();
+                        tone.hz = ref * std::exp2(tone.cents / 1200.0);
+                        tone.landing = landing(kb, p);
+                        tone.exact = p.is_rational() ? ExactKind::ratio : ExactKind::vector;
+                        break;
+                    }
+                    case Plan::none: {
+                        // Floating point only: a mathematically zero tone (possible for cents-only
+                        // notes in a simple relation) must not survive as rounding noise, so a tone
+                        // below 1e-9 of its parts' size counts as zero (no exactness is claimed).
+                        const double hz = A * fl + B * fh;
+                        if (hz <= 1e-9 * (std::abs(A) * fl + std::abs(B) * fh)) continue;
+                        tone.hz = hz;
+                        tone.cents = cents_of(hz, ref);
+                        tone.landing = tb.finder.around(tone.cents).nearer;
+                        break;
+                    }
+                    }
+                    tone.audibility = audibility(term, fl, fh, i, j);
+                    // Terms come by order already; within an order, by frequency (stable).
+                    std::size_t at = out.size();
+                    out.push_back(tone);
+                    while (at > block && out[at - 1].hz > tone.hz) {
+                        out[at] = out[at - 1];
+                        --at;
+                    }
+                    out[at] = tone;
                 }
-                case Plan::none: {
-                    // Floating point only: a mathematically zero tone (possible for cents-only
-                    // notes in a simple relation) must not survive as rounding noise, so a tone
-                    // below 1e-9 of its parts' size counts as zero (no exactness is claimed).
-                    double hz = A * fl + B * fh;
-                    if (hz <= 1e-9 * (std::abs(A) * fl + std::abs(B) * fh)) continue;
-                    tone.hz = hz;
-                    tone.cents = cents_of(hz, ref);
-                    tone.landing = nearest_note(kb, tone.cents);
-                    break;
-                }
-                }
-                tone.audibility = audibility(t, fl, fh, i, j);
-                block.push_back(std::move(tone));
             }
-            // Terms come by order already; within an order, by frequency.
-            order_index.resize(block.size());
-            std::iota(order_index.begin(), order_index.end(), std::size_t(0));
-            std::stable_sort(order_index.begin(), order_index.end(), [&](std::size_t x, std::size_t y) {
-                int ox = block[x].term.order(), oy = block[y].term.order();
-                return ox != oy ? ox < oy : block[x].hz < block[y].hz;
-            });
-            for (std::size_t k : order_index) out.push_back(std::move(block[k]));
         }
     }
-    return out;
 }
+
+namespace {
 
 std::string coefficient(int c, const char* letter, bool first) {
     std::string s;
@@ -252,12 +419,6 @@ std::vector<HelmholtzTone> helmholtz_ladder(double f_low, double f_high, int ord
     return out;
 }
 
-std::optional<Pitch> Tone::exact_value() const {
-    if (ratio) return Pitch::from_ratio(*ratio);
-    if (vector) return Pitch::from_vector(*vector);
-    return std::nullopt;
-}
-
 void check_options(const ToneOptions& options) {
     if (options.order < 2 || options.order > max_order)
         fail(Setting::order, "order " + std::to_string(options.order) +
@@ -284,28 +445,39 @@ void check_tone_count(std::uint64_t dyads, const ToneOptions& options) {
 
 std::vector<Tone> dyad_tones(const Keyboard& keyboard, const Note& low, const Note& high,
                              const ToneOptions& options) {
-    check_options(options);
-    const auto terms = combination_terms(options.order);
-    if (low.cents > high.cents) return tones_of(keyboard, high, low, options, terms);
-    return tones_of(keyboard, low, high, options, terms);
+    const ResultantEngine engine(keyboard, options);
+    std::vector<Tone> out;
+    if (low.cents > high.cents)
+        engine.tones(high, low, out);
+    else
+        engine.tones(low, high, out);
+    return out;
 }
 
-std::vector<DyadTones> keyboard_tones(const Keyboard& keyboard, const ToneOptions& options) {
+void for_each_keyboard_dyad(const Keyboard& keyboard, const ToneOptions& options,
+                            const std::function<void(const DyadTones&)>& visit) {
     check_options(options);
     const auto& notes = keyboard.notes();
     const std::uint64_t n = notes.size();
     check_tone_count(n * (n - 1) / 2, options);
-    const auto terms = combination_terms(options.order);
-    std::vector<DyadTones> out;
-    out.reserve(n * (n - 1) / 2);
+    const ResultantEngine engine(keyboard, options);
+    DyadTones dyad;
     for (std::size_t i = 0; i < notes.size(); ++i)
         for (std::size_t j = i + 1; j < notes.size(); ++j) {
             const Note* lo = &notes[i];
             const Note* hi = &notes[j];
             if (lo->cents == hi->cents) continue; // a unison is no dyad
             if (lo->cents > hi->cents) std::swap(lo, hi);
-            out.push_back({*lo, *hi, tones_of(keyboard, *lo, *hi, options, terms)});
+            dyad.low = *lo;
+            dyad.high = *hi;
+            engine.tones(*lo, *hi, dyad.tones);
+            visit(dyad);
         }
+}
+
+std::vector<DyadTones> keyboard_tones(const Keyboard& keyboard, const ToneOptions& options) {
+    std::vector<DyadTones> out;
+    for_each_keyboard_dyad(keyboard, options, [&](const DyadTones& d) { out.push_back(d); });
     return out;
 }
 

@@ -24,6 +24,8 @@ std::vector<DyadCell> dyad_grid(const Keyboard& keyboard, const ToneOptions& opt
                                  std::to_string(bound) + " tones (" + std::to_string(n * n) +
                                  " dyads), more than the limit of " + std::to_string(max_tones) +
                                  "; lower {order} or {partials}");
+    const ResultantEngine engine(keyboard, options);
+    DyadTones dyad;
     std::vector<DyadCell> cells;
     cells.reserve(n * n);
     for (std::size_t i = 0; i < n; ++i) {
@@ -36,10 +38,16 @@ std::vector<DyadCell> dyad_grid(const Keyboard& keyboard, const ToneOptions& opt
             c.high_period = keyboard.note(c.high_degree, 0).cents > low.cents ? 0 : 1;
             const Note high = keyboard.note(c.high_degree, c.high_period);
             c.interval_cents = high.cents - low.cents;
-            DyadTones dyad{low, high, dyad_tones(keyboard, low, high, options)};
+            // The engine takes the lower note first (a unison is its own low note).
+            if (high.cents < low.cents)
+                engine.tones(high, low, dyad.tones);
+            else
+                engine.tones(low, high, dyad.tones);
+            FitSum sum;
+            sum.add(dyad);
             for (const Tone& t : dyad.tones)
                 c.worst_cents = std::max(c.worst_cents, std::abs(t.landing.deviation_cents));
-            c.fit = fit({dyad});
+            c.fit = sum.result();
             cells.push_back(std::move(c));
         }
     }

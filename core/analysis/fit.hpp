@@ -39,10 +39,26 @@ inline double fit_weight(const CombinationTerm& term, double audibility, double 
 /// The same for one computed tone.
 double fit_weight(const Tone& tone, const FitOptions& options = {});
 
+/// The fit summed dyad by dyad, for tones that are not kept.
+class FitSum {
+public:
+    explicit FitSum(FitOptions options = {}) : options_(options) {}
+    void add(const DyadTones& dyad);
+    Fit result() const;
+
+private:
+    FitOptions options_;
+    Fit fit_;
+    double sum_ = 0.0; // sum of w*d^2
+};
+
 /// The fit over a set of dyads (every dyad of a keyboard, or the pairs of a chord).
 Fit fit(const std::vector<DyadTones>& dyads, const FitOptions& options = {});
 
 /// Throws InputError naming "--pitch-floor" unless 0 <= pitch_floor_hz <= 20000 Hz.
 void check_fit_options(const FitOptions& options);
+
+/// The fit of every dyad of the keyboard, computed dyad by dyad without keeping the tones.
+Fit keyboard_fit(const Keyboard& keyboard, const ToneOptions& options);
 
 } // namespace terzo

@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 
+#include "core/error.hpp"
+
 namespace terzo {
 
 namespace {
@@ -83,6 +85,58 @@ bool equals_note(const Keyboard& kb, const Landing& l, const Pitch& tone) {
 }
 
 } // namespace
+
+NoteFinder::NoteFinder(const Keyboard& keyboard) : period_(keyboard.period_cents()) {
+    const auto& sorted = keyboard.sorted_degrees();
+    const std::size_t n = sorted.size();
+    TERZO_ASSERT(n > 0);
+    // first[i]: the first entry of the group of equal pitches that holds entry i.
+    std::vector<std::size_t> first(n);
+    for (std::size_t i = 0; i < n; ++i)
+        first[i] = i > 0 && sorted[i - 1].cents_in_period == sorted[i].cents_in_period ? first[i - 1] : i;
+    auto side = [&](std::size_t i, int step) {
+        const auto& e = sorted[i];
+        return Side{e.cents_in_period, e.degree, step - e.shift, step};
+    };
+    for (const auto& e : sorted) cuts_.push_back(e.cents_in_period);
+    // Eight slices per degree: the search starts at its slice's upper bound and corrects it
+    // by a step or two (the result is exactly std::upper_bound's, the slices only guess).
+    const std::size_t slices = 8 * n;
+    buckets_per_cent_ = double(slices) / period_;
+    for (std::size_t b = 0; b < slices; ++b)
+        bucket_.push_back(std::size_t(std::upper_bound(cuts_.begin(), cuts_.end(), double(b) / buckets_per_cent_) -
+                                      cuts_.begin()));
+    // The same neighbours as neighbours() above, for every upper bound lo = 0..n.
+    for (std::size_t lo = 0; lo <= n; ++lo) {
+        below_.push_back(lo > 0 ? side(first[lo - 1], 0) : side(first[n - 1], -1));
+        above_.push_back(lo < n ? side(lo, 0) : side(0, 1));
+    }
+}
+
+NoteFinder::Around NoteFinder::around(double cents) const {
+    int p = static_cast<int>(std::floor(cents / period_));
+    double in = cents - p * period_;
+    if (in >= period_) {
+        in -= period_;
+        ++p;
+    }
+    // The upper bound of `in` in cuts_: the first entry strictly above it.
+    std::size_t lo = bucket_[std::min(bucket_.size() - 1, std::size_t(std::max(0.0, in * buckets_per_cent_)))];
+    while (lo > 0 && cuts_[lo - 1] > in) --lo;
+    while (lo < cuts_.size() && cuts_[lo] <= in) ++lo;
+    // Written as neighbours() computes it, so both give the same bits.
+    auto landing_of = [&](const Side& s) {
+        Landing l;
+        const int in_period = p + s.step;
+        l.degree = s.degree;
+        l.period = p + s.period_shift;
+        l.deviation_cents = cents - (in_period * period_ + s.cents_in_period);
+        return l;
+    };
+    const Landing below = landing_of(below_[lo]), above = landing_of(above_[lo]);
+    if (std::fabs(below.deviation_cents) <= std::fabs(above.deviation_cents)) return {below, above};
+    return {above, below};
+}
 
 Landing nearest_note(const Keyboard& keyboard, double cents) {
     Neighbours n = neighbours(keyboard, cents);

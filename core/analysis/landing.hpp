@@ -5,6 +5,7 @@
 #pragma once
 
 #include <optional>
+#include <vector>
 
 #include "core/analysis/keyboard.hpp"
 
@@ -31,5 +32,32 @@ Landing landing(const Keyboard& keyboard, const Pitch& tone);
 /// The landing of a rational tone whose cents were computed in floating point with a known
 /// error bound (cents). Used by the combination engine's fast path.
 Landing landing(const Keyboard& keyboard, double cents, const Ratio& tone, double error_cents);
+
+/// A keyboard's degrees laid out for many nearest-note searches (the resultant engine's hot
+/// path): the two notes around a tone by one binary search, with the same choices as
+/// nearest_note (ties to the lower note, the lowest-numbered of degrees at one pitch).
+class NoteFinder {
+public:
+    explicit NoteFinder(const Keyboard& keyboard);
+    /// The nearest note (exactly nearest_note's answer) and the other neighbour, both with
+    /// exact = false.
+    struct Around {
+        Landing nearer, other;
+    };
+    Around around(double cents) const;
+
+private:
+    struct Side {
+        double cents_in_period;
+        int degree;
+        int period_shift; ///< landing period = tone's period + period_shift
+        int step;         ///< 0, or -1/+1 for a neighbour in the period below/above
+    };
+    double period_;
+    std::vector<double> cuts_;              // sorted cents inside the period
+    std::vector<std::size_t> bucket_;       // a guess of the upper bound per slice of the period
+    double buckets_per_cent_;
+    std::vector<Side> below_, above_;       // indexed by the upper bound of `in` in cuts_
+};
 
 } // namespace terzo

@@ -109,7 +109,7 @@ double measure_tuning(const Scale& scale, RankMetric metric, const std::string& 
         // reference, default tone options.
         try {
             Keyboard kb(scale, default_ref_hz, 1, name);
-            return fit(keyboard_tones(kb, ToneOptions{})).rms_cents;
+            return keyboard_fit(kb, ToneOptions{}).rms_cents;
         } catch (const InputError& e) {
             if (e.pos().source == name) throw;
             // A limit of the resultants engine, whose message names options rank does not have.

@@ -95,3 +95,35 @@ TEST_CASE("degrees given out of order or below 1/1 land correctly", "[landing]")
     CHECK(l.degree == 2);
     CHECK(l.period == -1);
 }
+
+TEST_CASE("the engine's note finder chooses the same note as nearest_note, ties and duplicates included", "[landing]") {
+    // nearest_note is the definition; NoteFinder is its table for many searches. Scales with
+    // degrees out of order, below 1/1 and at one pitch twice, and points exactly on notes,
+    // exactly halfway between them and near period edges.
+    const Scale scales[] = {test::just12(), test::scl_text("x\n4\n3/2\n4/5\n3/2\n2/1\n"),
+                            test::equal_division(31), test::ratio_scale({{5, 4}, {3, 2}}, Ratio(3))};
+    for (const Scale& s : scales) {
+        Keyboard kb(s, 261.6255653, 2);
+        const NoteFinder finder(kb);
+        std::vector<double> points;
+        for (const auto& d : kb.sorted_degrees())
+            for (int p = -3; p <= 4; ++p) {
+                const double c = d.cents_in_period + p * kb.period_cents();
+                points.insert(points.end(), {c, c + 1e-9, c - 1e-9, c + 17.25, c - 0.5});
+            }
+        for (std::size_t i = 0; i + 1 < kb.sorted_degrees().size(); ++i) // halfway: a tie
+            points.push_back((kb.sorted_degrees()[i].cents_in_period + kb.sorted_degrees()[i + 1].cents_in_period) / 2);
+        for (int k = -4000; k <= 4000; ++k) points.push_back(k * 0.73);
+        for (double c : points) {
+            INFO(s.description() << " at " << c << " c");
+            const Landing want = nearest_note(kb, c);
+            const NoteFinder::Around got = finder.around(c);
+            REQUIRE(got.nearer.degree == want.degree);
+            REQUIRE(got.nearer.period == want.period);
+            REQUIRE(got.nearer.deviation_cents == want.deviation_cents);
+            REQUIRE_FALSE(got.nearer.exact);
+            // The other neighbour lies on the other side of the tone (or on it).
+            REQUIRE(std::fabs(got.other.deviation_cents) >= std::fabs(got.nearer.deviation_cents));
+        }
+    }
+}

@@ -78,7 +78,9 @@ TEST_CASE("the CSV form has one row per tone", "[report]") {
     CHECK(r.out.rfind("low_degree,low_period,low_hz,high_degree", 0) == 0);
 }
 
-TEST_CASE("the streamed JSON is the same text as the whole document", "[report]") {
+TEST_CASE("the compact and the indented JSON hold the same document, laid out as a JSON library prints it", "[report]") {
+    // nlohmann::json (a general-purpose library) is the reference: it reads both forms to the
+    // same value, and its dump(2) of that value is, byte for byte, the indented form.
     Keyboard kb(test::just12());
     ResultantsReport r;
     r.keyboard = &kb;
@@ -86,19 +88,58 @@ TEST_CASE("the streamed JSON is the same text as the whole document", "[report]"
     r.dyads = chord_tones(kb, *r.chord, r.options);
     r.bass = common_bass(kb, *r.chord);
     r.fit = fit(r.dyads);
-    std::ostringstream streamed;
-    write_resultants_json(streamed, r);
-    CHECK(streamed.str() == resultants_json(r).dump(2) + "\n");
+    auto both = [&] {
+        std::ostringstream compact, pretty;
+        write_resultants(compact, r, ResultantsFormat::json);
+        write_resultants(pretty, r, ResultantsFormat::json_pretty);
+        return std::pair{compact.str(), pretty.str()};
+    };
+    auto [compact, pretty] = both();
+    const auto doc = nlohmann::ordered_json::parse(compact);
+    CHECK(nlohmann::ordered_json::parse(pretty) == doc);
+    CHECK(pretty == doc.dump(2) + "\n");
+    CHECK(compact == doc.dump() + "\n");
+    CHECK(doc["dyads"].size() == 3);
+    CHECK(doc["chord"]["common_bass"]["ratio"] == "1/4");
     r.dyads.clear();
-    std::ostringstream empty;
-    write_resultants_json(empty, r);
-    CHECK(empty.str() == resultants_json(r).dump(2) + "\n");
+    auto [empty_compact, empty_pretty] = both();
+    const auto empty = nlohmann::ordered_json::parse(empty_compact);
+    CHECK(empty["dyads"].empty());
+    CHECK(empty_pretty == empty.dump(2) + "\n");
 }
 
-TEST_CASE("labels and exact values print the way the README shows them", "[report]") {
+TEST_CASE("labels and exact values print the way the manual shows them", "[report]") {
     CHECK(note_label(4, -2) == "degree 4, period -2");
-    Tone t;
-    CHECK(exact_text(t) == "-");
-    t.ratio = Ratio(1, 4);
-    CHECK(exact_text(t) == "1/4");
+    Keyboard kb(test::just12());
+    DyadTones d{kb.note(0, 0), kb.note(4, 0), {}}; // 1/1 and 5/4
+    const DyadExact exact(d.low, d.high);
+    Tone t; // the difference tone 5/4 - 1 = 1/4
+    CHECK(exact.text(t) == "-"); // a tone not marked exact has no exact value
+    t.exact = ExactKind::ratio;
+    CHECK(exact.text(t) == "1/4");
+    CHECK(exact_ratio(d, t) == Ratio(1, 4));
+}
+
+TEST_CASE("nothing is written before the first dyad, so a refused request leaves no output", "[report]") {
+    Keyboard kb(test::just12());
+    std::ostringstream out;
+    {
+        ResultantsWriter w(out, ResultantsFormat::json, kb, ToneOptions{});
+        CHECK(out.str().empty());
+    }
+    CHECK(out.str().empty());
+}
+
+TEST_CASE("the CSV rows carry the exact ratio and the landing of each tone", "[report]") {
+    // 1/1 and 5/4 from the reference 264 Hz: the difference tone is 66 Hz = 1/4, degree 0
+    // two periods down, exactly (docs/references.md section 5.2, as in combination_test.cpp).
+    Keyboard kb(test::ratio_scale({{5, 4}, {3, 2}}), 264.0);
+    ResultantsReport r;
+    r.keyboard = &kb;
+    r.options.order = 2;
+    r.dyads = {{kb.note(0, 0), kb.note(1, 0), dyad_tones(kb, kb.note(0, 0), kb.note(1, 0), r.options)}};
+    std::ostringstream out;
+    write_resultants(out, r, ResultantsFormat::csv);
+    CHECK(out.str().find("\r\n0,0,264.000000,1,0,330.000000,-1,1,2,difference tone,1,1,66.000000,1/4,0,-2,"
+                         "0.000000,true,0.5000\r\n") != std::string::npos);
 }
