@@ -7,7 +7,9 @@
 #include <numeric>
 #include <cstdio>
 #include <cstdlib>
+#include <filesystem>
 #include <string>
+#include <system_error>
 #include <vector>
 
 #include <SFML/Graphics/RenderWindow.hpp>
@@ -115,14 +117,25 @@ std::vector<int> parse_notes(const std::string& text, int notes) {
     return out;
 }
 
+// The folder of the font (and demo): $TERZO_ASSETS, else share/terzo/assets beside an
+// installed program (PREFIX/bin/terzo-gui), else the source tree's assets/ the build names.
+std::string assets_dir() {
+    const char* env = std::getenv("TERZO_ASSETS");
+    if (env && *env) return env;
+    std::error_code ec;
+    const std::filesystem::path exe = std::filesystem::read_symlink("/proc/self/exe", ec);
+    const std::filesystem::path installed = exe.parent_path().parent_path() / "share/terzo/assets";
+    if (!ec && std::filesystem::is_directory(installed, ec)) return installed.string();
+    return TERZO_ASSETS_DIR;
+}
+
 void set_up_imgui() {
     ImGui::CreateContext();
     ImGuiIO& io = ImGui::GetIO();
     io.IniFilename = nullptr; // the layout is fixed; nothing to remember
     // Latin-1, general punctuation, arrows, maths operators and geometric shapes (legend symbols).
     static const ImWchar ranges[] = {0x0020, 0x00FF, 0x2010, 0x206F, 0x2190, 0x21FF, 0x2200, 0x22FF, 0x25A0, 0x25FF, 0};
-    const char* env = std::getenv("TERZO_ASSETS");
-    std::string font = std::string(env && *env ? env : TERZO_ASSETS_DIR) + "/fonts/DejaVuSans.ttf";
+    std::string font = assets_dir() + "/fonts/DejaVuSans.ttf";
     // Glyphs rendered once at their screen size and placed on whole pixels, so that the
     // atlas can be sampled without filtering (gl_render.hpp); lines are smoothed by their
     // geometry, not by filtering the atlas.
