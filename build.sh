@@ -18,7 +18,7 @@ export CCACHE_BASEDIR=${CCACHE_BASEDIR:-$(cd .. && pwd)}
 # Every Debian package the project builds, tests or runs with. Keep this the only list.
 PACKAGES=(
   cmake ninja-build g++ pkg-config python3
-  libboost-dev libsfml-dev libimgui-dev catch2 libcli11-dev libfmt-dev nlohmann-json3-dev
+  libboost-dev libsfml-dev libimgui-dev catch2 libcli11-dev nlohmann-json3-dev
   libbenchmark-dev libfftw3-dev libsndfile1-dev sox
   xvfb xauth xdotool libgl1-mesa-dri
   strace ccache libstb-dev help2man
