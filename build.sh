@@ -21,7 +21,7 @@ PACKAGES=(
   libboost-dev libsfml-dev libimgui-dev catch2 libcli11-dev libfmt-dev nlohmann-json3-dev
   libbenchmark-dev libfftw3-dev libsndfile1-dev sox
   xvfb xauth xdotool libgl1-mesa-dri
-  strace ccache libstb-dev
+  strace ccache libstb-dev help2man
   clang libclang-rt-14-dev
 )
 

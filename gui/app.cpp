@@ -362,9 +362,16 @@ void stop_background(App& app) {
     b.wanted = false;
 }
 
+// The assets folder (font, demo session): $TERZO_ASSETS, else share/terzo/assets beside an
+// installed program (PREFIX/bin/terzo-gui), else the source tree's assets/ the build names.
 std::filesystem::path asset(const std::string& name) {
     const char* env = std::getenv("TERZO_ASSETS");
-    return std::filesystem::path(env && *env ? env : TERZO_ASSETS_DIR) / name;
+    if (env && *env) return std::filesystem::path(env) / name;
+    std::error_code ec;
+    const std::filesystem::path exe = std::filesystem::read_symlink("/proc/self/exe", ec);
+    const std::filesystem::path installed = exe.parent_path().parent_path() / "share/terzo/assets";
+    if (!ec && std::filesystem::is_directory(installed, ec)) return installed / name;
+    return std::filesystem::path(TERZO_ASSETS_DIR) / name;
 }
 
 std::string shown(const InputError& e) { return worded(e, setting_label); }

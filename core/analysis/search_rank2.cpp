@@ -5,6 +5,8 @@
 #include <cmath>
 #include <limits>
 
+#include <boost/math/tools/minima.hpp>
+
 #include "core/format.hpp"
 
 #include "core/analysis/search_detail.hpp"
@@ -59,7 +61,7 @@ std::vector<Rank2Result> search_rank2(const TargetCost& cost, double period, int
     // Scan the generator over (0, period) on a grid; where every target keeps its (generators,
     // periods) the errors are affine in g, so the cost (a mean, rms or maximum of their sizes)
     // is convex there and its minimum over the run, widened by one grid step each way, is
-    // found by golden-section search (in closed form for rms). Runs narrower than one grid
+    // found by Brent's method (in closed form for rms). Runs narrower than one grid
     // step (period/20000) can be missed.
     const int grid = 20000;
     const double h = period / grid;
@@ -94,25 +96,11 @@ std::vector<Rank2Result> search_rank2(const TargetCost& cost, double period, int
             }
             if (den > 0) g = std::clamp(num / den, lo, hi);
         } else {
-            const double phi = (std::sqrt(5.0) - 1) / 2;
-            double x1 = hi - phi * (hi - lo), x2 = lo + phi * (hi - lo);
-            double f1 = fixed_cost(a, x1), f2 = fixed_cost(a, x2);
-            for (int it = 0; it < 200 && hi - lo > 1e-12; ++it) {
-                if (f1 <= f2) {
-                    hi = x2;
-                    x2 = x1;
-                    f2 = f1;
-                    x1 = hi - phi * (hi - lo);
-                    f1 = fixed_cost(a, x1);
-                } else {
-                    lo = x1;
-                    x1 = x2;
-                    f1 = f2;
-                    x2 = lo + phi * (hi - lo);
-                    f2 = fixed_cost(a, x2);
-                }
-            }
-            g = 0.5 * (lo + hi);
+            // Boost.Math's Brent minimiser (golden section with parabolic steps), to the
+            // precision it allows for a double: about 3e-8 of the generator's size.
+            g = boost::math::tools::brent_find_minima([&](double x) { return fixed_cost(a, x); },
+                                                      lo, hi, std::numeric_limits<double>::digits / 2)
+                    .first;
         }
         found.push_back(evaluate_rank2(cost, period, n, g));
     };
@@ -134,7 +122,9 @@ std::vector<Rank2Result> search_rank2(const TargetCost& cost, double period, int
     std::vector<Rank2Result> out;
     for (auto& r : found) {
         bool dup = false;
-        for (const auto& q : out) dup = dup || std::fabs(q.generator - r.generator) < 1e-6;
+        // Brent stops within about 3e-8 of g, so one minimum found from two neighbouring runs
+        // can differ by 1e-5 c; generators closer than 1e-3 c count as one.
+        for (const auto& q : out) dup = dup || std::fabs(q.generator - r.generator) < 1e-3;
         if (!dup) out.push_back(std::move(r));
         if (out.size() == top) break;
     }

@@ -4,6 +4,9 @@
 #include <cmath>
 #include <numeric>
 
+#include <boost/multiprecision/miller_rabin.hpp>
+#include <boost/random/linear_congruential.hpp>
+
 namespace terzo {
 
 namespace {
@@ -12,17 +15,6 @@ __extension__ typedef unsigned __int128 u128;
 
 std::uint64_t mul_mod(std::uint64_t a, std::uint64_t b, std::uint64_t m) {
     return static_cast<std::uint64_t>(u128(a) * b % m);
-}
-
-std::uint64_t pow_mod(std::uint64_t a, std::uint64_t e, std::uint64_t m) {
-    std::uint64_t r = 1 % m;
-    a %= m;
-    while (e) {
-        if (e & 1) r = mul_mod(r, a, m);
-        a = mul_mod(a, a, m);
-        e >>= 1;
-    }
-    return r;
 }
 
 // Pollard's rho with Brent's cycle detection; n is an odd composite.
@@ -64,32 +56,12 @@ void add_term(std::vector<PrimeVector::Term>& terms, std::uint64_t p, const Rati
 } // namespace
 
 bool is_prime(std::uint64_t n) {
-    if (n < 2) return false;
-    for (std::uint64_t p : {2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37}) {
-        if (n % p == 0) return n == p;
-    }
-    std::uint64_t d = n - 1;
-    int s = 0;
-    while ((d & 1) == 0) {
-        d >>= 1;
-        ++s;
-    }
-    // These bases decide primality for every n < 2^64 (Sinclair's base set is smaller; the
-    // first twelve primes are the commonly cited safe choice).
-    for (std::uint64_t a : {2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37}) {
-        std::uint64_t x = pow_mod(a, d, n);
-        if (x == 1 || x == n - 1) continue;
-        bool composite = true;
-        for (int r = 1; r < s; ++r) {
-            x = mul_mod(x, x, n);
-            if (x == n - 1) {
-                composite = false;
-                break;
-            }
-        }
-        if (composite) return false;
-    }
-    return true;
+    // Boost.Multiprecision's Miller-Rabin test: trial division by the primes up to 227, a
+    // Fermat test, then rounds with random bases. The generator is local and seeded the same
+    // way on every call, so a given n always gets the same answer and threads share nothing.
+    // A composite survives one round with probability at most 1/4, so 32 rounds at most 2^-64.
+    boost::random::minstd_rand bases;
+    return boost::multiprecision::miller_rabin_test(n, 32, bases);
 }
 
 std::vector<std::uint64_t> factor(std::uint64_t n) {

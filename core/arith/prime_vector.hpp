@@ -59,7 +59,7 @@ private:
     std::vector<Term> terms_;
 };
 
-/// True when n is prime (deterministic Miller-Rabin for 64-bit n).
+/// True when n is prime (Boost.Multiprecision's Miller-Rabin test, 32 rounds; the same answer every call).
 bool is_prime(std::uint64_t n);
 /// The prime factors of n > 0 with multiplicity, ascending.
 std::vector<std::uint64_t> factor(std::uint64_t n);

@@ -7,8 +7,9 @@
 
 namespace terzo {
 
-/// Coefficients of y = x + c2 x^2 + c3 x^3. The defaults make the resultants of two equal
-/// tones at full drive about 20-25 dB below the tones: clearly audible, yet clearly quieter.
+/// Coefficients of y = x + c2 x^2 + c3 x^3. The defaults (our choice) put the resultants of
+/// two equal tones at full drive about 21 dB (f2 - f1) and 26 dB (2 f1 - f2) below the tones:
+/// clearly audible, yet clearly quieter.
 struct Polynomial {
     double c2 = 0.2; ///< quadratic coefficient
     double c3 = 0.3; ///< cubic coefficient

@@ -4,6 +4,7 @@
 
 
 #include "core/setting_error.hpp"
+#include "core/analysis/combination.hpp"
 #include "tests/support/scales.hpp"
 
 using namespace terzo;
@@ -74,8 +75,16 @@ TEST_CASE("the grid refuses tunings above its size limit", "[dyad_grid]") {
 }
 
 TEST_CASE("the grid passes option errors through", "[dyad_grid]") {
+    // The grid reports the resultant engine's own message for a bad option, word for word.
     Keyboard kb(demo(), 261.6255653, 1);
-    REQUIRE_THROWS_AS(dyad_grid(kb, order(13)), InputError);
+    std::string engine;
+    try {
+        check_options(order(13));
+    } catch (const InputError& e) {
+        engine = e.what();
+    }
+    REQUIRE_THAT(engine, Catch::Matchers::Contains("order 13 is outside the allowed range 2 to 12"));
+    REQUIRE_THROWS_MATCHES(dyad_grid(kb, order(13)), InputError, Catch::Matchers::Message(engine));
 }
 
 TEST_CASE("the grid refuses more tones than any one request may compute, naming what to lower", "[dyad_grid]") {

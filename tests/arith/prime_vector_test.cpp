@@ -56,6 +56,18 @@ TEST_CASE("primality and factoring agree with trial division", "[prime_vector]")
     // Large cases: a 61-bit Mersenne prime and a product of two large primes.
     CHECK(terzo::is_prime(2305843009213693951ULL));
     CHECK_FALSE(terzo::is_prime(1000000007ULL * 998244353ULL));
+    // The largest primes below 2^64 and 2^63 (sympy.prevprime, sympy 1.14).
+    CHECK(terzo::is_prime(18446744073709551557ULL));
+    CHECK(terzo::is_prime(9223372036854775783ULL));
+    // Composites that pass the strong test for every base up to the n-th prime: the smallest
+    // such number for n = 1..9 (OEIS A014233; each checked composite with sympy.factorint).
+    for (std::uint64_t n : {2047ULL, 1373653ULL, 25326001ULL, 3215031751ULL, 2152302898747ULL,
+                            3474749660383ULL, 341550071728321ULL, 3825123056546413051ULL})
+        CHECK_FALSE(terzo::is_prime(n));
+    // Carmichael numbers, which fool the Fermat test for every base prime to them (OEIS A002997;
+    // factored and checked with sympy).
+    for (std::uint64_t n : {561ULL, 41041ULL, 825265ULL, 321197185ULL, 5394826801ULL})
+        CHECK_FALSE(terzo::is_prime(n));
     CHECK(terzo::factor(1000000007ULL * 998244353ULL) ==
           std::vector<std::uint64_t>{998244353ULL, 1000000007ULL});
     CHECK(terzo::factor(531441) == std::vector<std::uint64_t>(12, 3));

@@ -2,11 +2,18 @@
 
 #include <catch2/catch.hpp>
 
+#include <csignal>
 #include <filesystem>
 #include <fstream>
+#include <iterator>
 #include <sstream>
+#include <sys/resource.h>
+#include <sys/wait.h>
+#include <unistd.h>
 
+#include "core/error.hpp"
 #include "core/tuning/scl.hpp"
+#include "tests/support/run.hpp"
 
 using namespace terzo;
 
@@ -93,16 +100,40 @@ TEST_CASE("an empty session is valid", "[session]") {
 }
 
 TEST_CASE("session files are written atomically and replaced on save", "[session]") {
-    auto dir = std::filesystem::temp_directory_path() / "terzo_session_test";
-    std::filesystem::create_directories(dir);
-    auto path = dir / "s.json";
-    std::filesystem::remove(path);
+    test::ScratchFolder dir("session");
+    const auto path = dir.path / "s.json";
     save_session_file(path, sample());
+    const std::string first = test::slurp(path);
     Session again = sample();
     again.view = "sheet";
     save_session_file(path, again);
     CHECK(load_session_file(path).view == "sheet");
-    std::filesystem::remove_all(dir);
+    const std::string second = test::slurp(path);
+
+    // Atomically: a save that fails midway leaves the saved file as it was and no temporary
+    // file beside it. The failure is a full disk as the kernel reports it to a writer:
+    // RLIMIT_FSIZE makes write() fail with EFBIG past 16 bytes (SIGXFSZ ignored), in a child.
+    pid_t child = ::fork();
+    REQUIRE(child >= 0);
+    if (child == 0) {
+        ::signal(SIGXFSZ, SIG_IGN);
+        rlimit limit{16, 16};
+        ::setrlimit(RLIMIT_FSIZE, &limit);
+        try {
+            save_session_file(path, sample());
+        } catch (const InputError&) {
+            ::_exit(3);
+        }
+        ::_exit(0);
+    }
+    int status = 0;
+    ::waitpid(child, &status, 0);
+    REQUIRE(WIFEXITED(status));
+    CHECK(WEXITSTATUS(status) == 3); // the failed save was reported
+    CHECK(test::slurp(path) == second);
+    CHECK(second != first);
+    CHECK(std::distance(std::filesystem::directory_iterator(dir.path),
+                        std::filesystem::directory_iterator()) == 1);
 }
 
 TEST_CASE("malformed session files are rejected with one clear message", "[session]") {

@@ -3,12 +3,14 @@
 #include <catch2/catch.hpp>
 
 #include <cmath>
+#include <cstdint>
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <sstream>
 #include <string>
 #include <unistd.h>
+#include <vector>
 
 #include "core/error.hpp"
 #include "core/io/wav.hpp"
@@ -24,6 +26,20 @@ std::vector<double> test_signal(std::size_t n) {
     for (std::size_t i = 0; i < n; ++i)
         x[i] = 0.5 * std::sin(2 * M_PI * 440.0 * double(i) / 44100.0);
     return x;
+}
+
+// The ids of a RIFF file's chunks after the "WAVE" form type, in order (RIFF: each chunk is
+// a four-letter id, a little-endian 32-bit size and the data, padded to an even size).
+std::vector<std::string> chunk_ids(const std::string& riff) {
+    std::vector<std::string> ids;
+    std::size_t at = 12;
+    while (at + 8 <= riff.size()) {
+        ids.push_back(riff.substr(at, 4));
+        std::uint32_t size = 0;
+        for (int i = 3; i >= 0; --i) size = size << 8 | std::uint8_t(riff[at + 4 + std::size_t(i)]);
+        at += 8 + size + (size & 1);
+    }
+    return ids;
 }
 
 } // namespace
@@ -84,6 +100,14 @@ TEST_CASE("encoding the same samples twice gives the same bytes", "[wav]") {
     const auto x = test_signal(500);
     for (auto f : {SampleFormat::int16, SampleFormat::float32})
         CHECK(encode_wav(x, WavFormat{48000, f}) == encode_wav(x, WavFormat{48000, f}));
+    // Two encodings within the same second cannot show a time stamp, so check for the chunk
+    // that would carry one: libsndfile's PEAK chunk (a write time and each channel's peak)
+    // must be absent. A float file has "fact" (required for non-PCM data by the WAVE format)
+    // and libsndfile's "PAD " filler, which holds zeros.
+    CHECK(chunk_ids(encode_wav(x, WavFormat{48000, SampleFormat::int16})) ==
+          std::vector<std::string>{"fmt ", "data"});
+    CHECK(chunk_ids(encode_wav(x, WavFormat{48000, SampleFormat::float32})) ==
+          std::vector<std::string>{"fmt ", "fact", "PAD ", "data"});
     // RIFF header: 44 bytes for 16-bit PCM, then two bytes per sample.
     const std::string b = encode_wav(x, WavFormat{48000, SampleFormat::int16});
     CHECK(b.size() == 44 + 2 * 500);
