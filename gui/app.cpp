@@ -233,11 +233,12 @@ void refresh(App& app) {
             std::size_t placed = 0;
             for (const DyadTones& d : a.selection_tones) {
                 std::vector<LatticePlace> places;
+                const DyadExact exact(d.low, d.high);
                 for (const Tone& tone : d.tones) {
                     if (placed == max_placed_tones) break;
                     ++placed;
                     places.push_back(place_on_lattice(
-                        tone.exact_value().value_or(Pitch::from_cents(tone.cents)), lattice_options(s)));
+                        exact.value(tone).value_or(Pitch::from_cents(tone.cents)), lattice_options(s)));
                 }
                 a.tones_not_placed += d.tones.size() - places.size();
                 a.tone_places.push_back(std::move(places));
