@@ -88,7 +88,7 @@ case "$ACTION" in
     install_missing
     configure_and_build "$BUILD_DIR-sanitize" -DTERZO_SANITIZE=ON -DTERZO_BUILD_GUI=OFF -DTERZO_BUILD_BENCH=OFF
     (cd "$BUILD_DIR-sanitize" && ctest --output-on-failure -j "$JOBS")
-    "$0" fuzz "${TERZO_FUZZ_SECONDS:-${2:-60}}"
+    "$0" fuzz "${TERZO_FUZZ_SECONDS:-${2:-30}}"
     ;;
   fuzz)
     install_missing

@@ -118,7 +118,9 @@ void warn_key_order(const KeyMap& map, std::ostream& err) {
 
 std::string layout_summary(const KeyMap& map, const KeyMapSpec& spec) {
     const KeyPattern& p = map.pattern();
-    return key_layout_name(spec.layout) + ", \"" + pattern_keys_text(p.keys) + "\" (" +
+    // A long pattern (every key of a big scale) is summarised, not listed key by key.
+    const std::string keys = p.keys.size() <= 128 ? "\"" + pattern_keys_text(p.keys) + "\"" : "keys in degree order";
+    return key_layout_name(spec.layout) + ", " + keys + " (" +
            std::to_string(p.keys.size()) + (p.keys.size() == 1 ? " key, " : " keys, ") +
            std::to_string(p.degrees_per_repeat) + " degrees a repeat)";
 }

@@ -44,6 +44,13 @@ bool is_control(unsigned cp) {
     return (cp < 0x20 && cp != '\t' && cp != '\n') || (cp >= 0x7F && cp <= 0x9F);
 }
 
+// A control character at i that is not the \r of a \r\n line end (CSV ends rows with \r\n,
+// RFC 4180; a lone \r could move a terminal's cursor back over a line).
+bool control_at(std::string_view text, std::size_t i, std::size_t n) {
+    if (text[i] == '\r' && i + 1 < text.size() && text[i + 1] == '\n') return false;
+    return is_control(code_point(text, i, n));
+}
+
 // Walks text, replacing invalid sequences and (when controls) control characters.
 std::string clean(std::string_view text, bool controls) {
     std::string out;
@@ -51,7 +58,7 @@ std::string clean(std::string_view text, bool controls) {
     for (std::size_t i = 0; i < text.size();) {
         std::size_t bad = 1;
         const std::size_t n = sequence_length(text, i, &bad);
-        if (n == 0 || (controls && is_control(code_point(text, i, n)))) {
+        if (n == 0 || (controls && control_at(text, i, n))) {
             out += replacement_character;
             i += n == 0 ? bad : n;
         } else {
@@ -66,7 +73,7 @@ bool check(std::string_view text, bool controls) {
     for (std::size_t i = 0; i < text.size();) {
         std::size_t bad = 1;
         const std::size_t n = sequence_length(text, i, &bad);
-        if (n == 0 || (controls && is_control(code_point(text, i, n)))) return false;
+        if (n == 0 || (controls && control_at(text, i, n))) return false;
         i += n;
     }
     return true;

@@ -13,7 +13,7 @@ import wave
 
 RATE = 44100
 B = 1e-4
-# Werckmeister III, cents above C (REFERENCES.md section 2): C C# D Eb E F F# G G# A Bb B
+# Werckmeister III, cents above C (docs/references.md section 2): C C# D Eb E F F# G G# A Bb B
 CENTS = [0.0, 90.225, 192.180, 294.135, 390.225, 498.045, 588.270, 696.090, 792.180,
          888.270, 996.090, 1092.180]
 C4 = 415.0 / 2 ** (CENTS[9] / 1200)

@@ -285,7 +285,9 @@ KeyMap make_key_map(const Scale& scale, const KeyMapSpec& spec, const SourcePos&
             pattern.degrees_per_repeat = static_cast<int>(sorted.scale.size());
         break;
     }
-    check_pattern(pattern, pos);
+    // The every-key layout's own pattern is valid by construction and as long as the scale
+    // (up to 4096 degrees); the pattern limits are for patterns a user writes.
+    if (spec.layout != KeyLayout::every_key) check_pattern(pattern, pos);
     const KeyReference ref =
         spec.reference ? *spec.reference : default_key_reference(sorted.scale.size(), spec.root_key);
     if (!(std::isfinite(ref.hz) && ref.hz > 0 && ref.hz <= 20000))

@@ -69,7 +69,7 @@ TEST_CASE("terms come by order, both coefficients non-zero, never both negative"
     CHECK(combination_terms(5).size() == 3 * (1 + 2 + 3 + 4));
 }
 
-TEST_CASE("combination frequencies match the worked examples of REFERENCES.md", "[combination]") {
+TEST_CASE("combination frequencies match the worked examples of docs/references.md", "[combination]") {
     // docs/references.md section 5.2 [C] (constructed, recomputed with python3).
     SECTION("400 and 500 Hz (5:4)") {
         Keyboard kb(test::ratio_scale({{5, 4}}), 400.0);

@@ -98,11 +98,11 @@ TEST_CASE("the grid refuses more tones than any one request may compute, naming 
         FAIL("the grid was computed");
     } catch (const InputError& e) {
         CHECK(std::string(e.what()) == "--order: error: the dyad grid of 12 degrees could compute 29196288 tones (144 dyads), "
-                                       "more than the limit of 1000000; lower --order or --partials");
+                                       "more than the limit of 20000000; lower --order or --partials");
         // The window words the same refusal with its own labels.
         CHECK(worded(e, [](Setting s) { return "[" + std::string(setting_name(s)) + "]"; }) ==
               "[order]: error: the dyad grid of 12 degrees could compute 29196288 tones (144 dyads), "
-              "more than the limit of 1000000; lower [order] or [partials]");
+              "more than the limit of 20000000; lower [order] or [partials]");
     }
     o.partials = 2; // 144 * 198 * 4 = 114,048 tones: computed
     CHECK(dyad_grid(kb, o).size() == 144u);

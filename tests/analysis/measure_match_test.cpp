@@ -2,7 +2,7 @@
 // tuner's intervals, and the closest tuning with its pitch standard. References: the 12-TET
 // beat rates of Capleton, "Theory and Practice of Piano Tuning" (2007) as reproduced in Teki et
 // al., J. Neurosci. 32(35) 2012, Table 1, and the Werckmeister III frequencies at A4 = 440 Hz
-// of R. Rhodes, Mechanical Music Digest 2001-02-23 (both in REFERENCES.md, sections 4 and 2).
+// of R. Rhodes, Mechanical Music Digest 2001-02-23 (both in docs/references.md, sections 4 and 2).
 #include <catch2/catch.hpp>
 
 #include <cmath>
@@ -74,7 +74,7 @@ TEST_CASE("the intervals between measured notes beat as played beside the tuning
     CHECK(checks[1].target.hz == Approx(0.8858).margin(5e-5));
 
     SECTION("a mistuned note shows in the played beat, not in the target") {
-        // Werckmeister III at A4 = 440: F3-C4 is pure and C4-G4 beats 2.6725 (REFERENCES.md 4).
+        // Werckmeister III at A4 = 440: F3-C4 is pure and C4-G4 beats 2.6725 (docs/references.md 4).
         NoteMap w(test::werckmeister_3(), 0, a440, "test");
         std::vector<NoteCheck> played = {check_note(w, w.hz(NoteName{5, 3})),
                                          check_note(w, shifted(w.hz(NoteName{0, 4}), 2.0)),
@@ -155,7 +155,7 @@ TEST_CASE("the closest library tuning is the one the notes were tuned in", "[mea
 TEST_CASE("the interval just tuned is found in either order with its target beat",
           "[measure_match]") {
     // Werckmeister III at A4 = 440: the major third F3-A3 beats 1.9859 per second
-    // (REFERENCES.md section 4, computed; Rhodes' frequencies F3 175.6028, A3 220).
+    // (docs/references.md section 4, computed; Rhodes' frequencies F3 175.6028, A3 220).
     NoteMap map(test::werckmeister_3(), 0, a440, "test");
     const NoteCheck f3 = check_note(map, 175.6028), a3 = check_note(map, 220.0);
     for (auto [first, second] : {std::pair{f3, a3}, std::pair{a3, f3}}) {

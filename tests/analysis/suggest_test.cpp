@@ -95,7 +95,7 @@ TEST_CASE("each candidate's incremental score equals its score from scratch", "[
 }
 
 TEST_CASE("adding 3/2 to 1/1 and 5/4 catches two resultants exactly", "[suggest]") {
-    // REFERENCES.md section 5 (just 4:5:6 on 264 Hz): the pairs give the difference tones 66,
+    // docs/references.md section 5 (just 4:5:6 on 264 Hz): the pairs give the difference tones 66,
     // 66 and 132 Hz. Order 2 over the keyboard 264, 330, 396 (added), 528 Hz: difference
     // tones 66, 132, 264, 66, 198, 132 and summation tones 594, 660, 792, 726, 858, 924 Hz.
     // The notes of 3/2 are 396 * 2^k: 198 (528 - 330) and 792 (264 + 528) land on them

@@ -40,6 +40,9 @@ TEST_CASE("printable text has no control characters but keeps tabs and newlines"
     CHECK(printable("del\x7F") == "del" + fffd);
     CHECK(printable("c1 \xC2\x9B") == "c1 " + fffd); // U+009B, a CSI on some terminals
     CHECK(printable("cr\r") == "cr" + fffd);
+    // A CSV row ends in \r\n (RFC 4180): that pair is a line end, not a control character.
+    CHECK(printable("a,b\r\nc,d\r\n") == "a,b\r\nc,d\r\n");
+    CHECK(printable("a\rb\n") == "a" + fffd + "b\n");
     CHECK_FALSE(is_printable("\x1B"));
     CHECK(is_printable("plain"));
 }

@@ -2,9 +2,9 @@
 """The tuning check panel under Xvfb, through its test hook: terzo-gui listens to a WAV file
 (TERZO_CHECK_WAV) instead of a microphone and prints each reading. The file holds F3 and A3
 of Werckmeister III at A4 = 440 Hz (175.6028 and 220 Hz, R. Rhodes, Mechanical Music Digest
-2001-02-23; REFERENCES.md section 2), six harmonics each, decaying. Expected: F3 then A3 read
+2001-02-23; docs/references.md section 2), six harmonics each, decaying. Expected: F3 then A3 read
 within 0.3 cents of the tuning, and the major third F3-A3 with its target beat rate 1.99 per
-second (REFERENCES.md section 4: 1.9859).
+second (docs/references.md section 4: 1.9859).
 Usage: check_panel_check.py TERZO_GUI TUNING.scl WORK_FOLDER"""
 import math
 import os

@@ -211,7 +211,7 @@ TEST_CASE("the bulk dump checksum follows the XOR rule of the specification", "[
 
 TEST_CASE("single-note tuning changes have the specification's layout and length", "[mts]") {
     const MtsFrequency e4{0x3F, 0x6E, 0x3E};
-    SECTION("REFERENCES.md 6.4 example: key 64 to 5/4 above 12-TET C4, all devices") {
+    SECTION("docs/references.md 6.4 example: key 64 to 5/4 above 12-TET C4, all devices") {
         auto msgs = single_note_tuning_changes({{64, e4}}, {0x7F, 0, 0}, false, true);
         REQUIRE(msgs.size() == 1);
         CHECK(hex_text(msgs[0]) == "F0 7F 7F 08 02 00 01 40 3F 6E 3E F7");
@@ -297,7 +297,7 @@ TEST_CASE("scale/octave offsets of a 12-note tuning are its cents from 12-TET", 
 TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
     const KeyMap map(quarter_comma(), 60, c_fixed());
     const OctaveOffsets o = octave_offsets(map, opt);
-    SECTION("1-byte form, non-real-time, all channels (REFERENCES.md 6.5 [C])") {
+    SECTION("1-byte form, non-real-time, all channels (docs/references.md 6.5 [C])") {
         auto enc = encode_offsets_1byte(o, opt);
         Bytes msg = scale_octave_1byte(enc.values, all_channels, 0x7F, false);
         REQUIRE(msg.size() == 21); // docs/references.md 6.1
@@ -309,7 +309,7 @@ TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
         for (std::size_t pc = 0; pc < 12; ++pc)
             CHECK(std::fabs(d.offset_cents[pc] - o[pc]) <= 0.5);
     }
-    SECTION("2-byte form, real-time, all channels (REFERENCES.md 6.5 [C])") {
+    SECTION("2-byte form, real-time, all channels (docs/references.md 6.5 [C])") {
         auto enc = encode_offsets_2byte(o, opt);
         Bytes msg = scale_octave_2byte(enc.values, all_channels, 0x7F, true);
         REQUIRE(msg.size() == 33);
@@ -321,7 +321,7 @@ TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
         for (std::size_t pc = 0; pc < 12; ++pc)
             CHECK(std::fabs(d.offset_cents[pc] - o[pc]) <= 100.0 / 8192 / 2 + 1e-9);
     }
-    SECTION("dumps 05 and 06 with name and checksum (REFERENCES.md 6.6 [C])") {
+    SECTION("dumps 05 and 06 with name and checksum (docs/references.md 6.6 [C])") {
         const auto name = mts_name("Meantone 1/4 SC", {"--name", 0, 0});
         Bytes d1 = scale_octave_dump_1byte(encode_offsets_1byte(o, opt).values, name, {0, 0, 0});
         REQUIRE(d1.size() == 37);
@@ -333,7 +333,7 @@ TEST_CASE("scale/octave messages match the constructed encodings", "[mts]") {
         CHECK(d2[47] == 0x22);
         CHECK(read_message(d2).checksum_ok);
     }
-    SECTION("other tunings of REFERENCES.md 6.5 [C]") {
+    SECTION("other tunings of docs/references.md 6.5 [C]") {
         auto one = [](const Scale& s) {
             return encode_offsets_1byte(octave_offsets(KeyMap(s, 60, c_fixed()), opt), opt).values;
         };

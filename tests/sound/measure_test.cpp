@@ -3,7 +3,7 @@
 // the stiff-string model f_k = k f0 sqrt(1 + B k^2) (H. Fletcher, J. Acoust. Soc. Am. 36(1),
 // 1964, 203-209), decay, start with a burst of noise and sit on white noise 45 dB under the
 // recording's peak. The target frequencies come from published temperaments in scales/
-// (REFERENCES.md) laid over the keyboard by NoteMap, at A4 = 440 and A4 = 415 Hz.
+// (docs/references.md) laid over the keyboard by NoteMap, at A4 = 440 and A4 = 415 Hz.
 #include <catch2/catch.hpp>
 
 #include <cmath>

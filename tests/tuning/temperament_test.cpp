@@ -60,7 +60,7 @@ TEST_CASE("meantone fifths are the published sizes", "[temperament]") {
     CHECK(meantone_fifth(Ratio(0)) == PrimeVector::from_ratio(Ratio(3, 2)));
 }
 
-TEST_CASE("historical temperaments match the degree table of REFERENCES.md 2.3", "[temperament]") {
+TEST_CASE("historical temperaments match the degree table of docs/references.md 2.3", "[temperament]") {
     // docs/references.md 2.3 (computed from the definitions in 2.1; cross-checked there against
     // Barbour 1951's rounded tables [M] and R. Rhodes 2001 for Werckmeister III [S]).
     check_row("chain 3/2 up 8 down 3",
