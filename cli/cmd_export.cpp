@@ -270,30 +270,12 @@ void run_export(const ExportOptions& o, std::ostream& report) {
                << runs_text(keys.out_of_range) << "\n";
     if (any_mts || !o.smf.empty())
         report << "Name field: \"" << std::string(name.begin(), name.end()) << "\"\n";
-    // A write can still fail (disk full, permissions): remove the files this run created
-    // so far, so that either every output is written or none is new.
-    std::vector<std::string> created, replaced;
-    for (const Output& out : outputs) {
-        std::error_code ec;
-        const bool existed = std::filesystem::exists(out.path, ec);
-        try {
-            write_file_atomically(
-                out.path, [&](std::ostream& s) { s << out.data; },
-                o.force ? Overwrite::allow : Overwrite::refuse);
-        } catch (const InputError& e) {
-            for (const std::string& c : created)
-                std::filesystem::remove(c, ec);
-            std::string note = created.empty() ? "" : "; removed the files written before it";
-            if (!replaced.empty()) {
-                note += "; already replaced:";
-                for (const std::string& r : replaced)
-                    note += " " + r;
-            }
-            fail(e.pos(), e.message() + note);
-        }
-        (existed ? replaced : created).push_back(out.path);
-        report << "Wrote " << out.path << ": " << out.summary << "\n";
-    }
+    // Every output is written beside its target first and renamed into place only when all
+    // are complete, so a full disk or a refused folder leaves every target as it was.
+    std::vector<FileAt> files;
+    for (const Output& out : outputs) files.push_back({out.path, out.data});
+    write_files_together(files, o.force ? Overwrite::allow : Overwrite::refuse);
+    for (const Output& out : outputs) report << "Wrote " << out.path << ": " << out.summary << "\n";
 }
 
 } // namespace

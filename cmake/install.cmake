@@ -2,7 +2,7 @@
 # usual places (GNUInstallDirs):
 #   bin/terzo
 #   share/terzo/scales/*.scl              the library of tunings
-#   share/man/man1/terzo.1                generated from --help by help2man (when it is found)
+#   share/man/man1/terzo.1, terzo-SUBCOMMAND.1  generated from --help by help2man (when found)
 # and with the GUI built:
 #   bin/terzo-gui, share/man/man1/terzo-gui.1
 #   share/terzo/assets/                   the window's font and demo tuning
@@ -25,16 +25,28 @@ function(terzo_man_page target description)
   add_custom_command(OUTPUT ${page}
     COMMAND ${CMAKE_COMMAND} -E make_directory ${PROJECT_BINARY_DIR}/man
     COMMAND ${HELP2MAN} --no-info --no-discard-stderr --section=1
-            "--name=${description}" "--version-string=${PROJECT_VERSION}"
+            "--name=${description}" "--version-string=${PROJECT_VERSION}" ${ARGN}
             --output=${page} $<TARGET_FILE:${target}>
-    DEPENDS ${target}
+    DEPENDS ${target} ${TERZO_MAN_PAGES}
     COMMENT "Man page ${target}.1 from ${target} --help"
     VERBATIM)
   set(TERZO_MAN_PAGES ${TERZO_MAN_PAGES} ${page} PARENT_SCOPE)
 endfunction()
 
 if(HELP2MAN)
-  terzo_man_page(terzo "tunings and temperaments through their combination tones")
+  # One page per subcommand (terzo-inspect.1, ...), then terzo.1 naming them under SEE ALSO.
+  set(sub_stamp ${PROJECT_BINARY_DIR}/man/subcommands.stamp)
+  add_custom_command(OUTPUT ${sub_stamp}
+    COMMAND ${CMAKE_COMMAND} -DTERZO=$<TARGET_FILE:terzo> -DHELP2MAN=${HELP2MAN}
+            -DOUT=${PROJECT_BINARY_DIR}/man -DVERSION=${PROJECT_VERSION}
+            -P ${PROJECT_SOURCE_DIR}/cmake/man_pages.cmake
+    COMMAND ${CMAKE_COMMAND} -E touch ${sub_stamp}
+    DEPENDS terzo ${PROJECT_SOURCE_DIR}/cmake/man_pages.cmake
+    COMMENT "Man pages of terzo's subcommands from their --help"
+    VERBATIM)
+  set(TERZO_MAN_PAGES ${sub_stamp})
+  terzo_man_page(terzo "tunings and temperaments through their combination tones"
+                 --include=${PROJECT_BINARY_DIR}/man/see-also.h2m)
 else()
   message(STATUS "help2man not found: no man pages (Debian package help2man)")
 endif()
@@ -55,7 +67,8 @@ endif()
 
 if(TERZO_MAN_PAGES)
   add_custom_target(man ALL DEPENDS ${TERZO_MAN_PAGES})
-  install(FILES ${TERZO_MAN_PAGES} DESTINATION ${CMAKE_INSTALL_MANDIR}/man1)
+  install(DIRECTORY ${PROJECT_BINARY_DIR}/man/ DESTINATION ${CMAKE_INSTALL_MANDIR}/man1
+          FILES_MATCHING PATTERN "*.1" PATTERN wrappers EXCLUDE)
 endif()
 
 if(BUILD_TESTING)

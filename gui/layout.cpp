@@ -192,16 +192,36 @@ void central(App& app, ImVec2 pos, ImVec2 size) {
         const char* id;
         const char* label;
         void (*draw)(App&);
+        const char* help; ///< one plain line on the tab's hover: what the view shows, trade terms kept
     };
-    static const Tab tabs[] = {{"lattice", "Lattice", draw_lattice_view}, {"grid", "Dyad grid", draw_grid_view},
-                               {"keys", "Keys", draw_keys_view},         {"sheet", "Sheet", draw_sheet_view}};
+    static const Tab tabs[] = {
+        {"lattice", "Lattice", draw_lattice_view,
+         "Notes as points: a pure fifth is one step right, a pure major third one step up. The faint "
+         "extra tones two notes make together (resultants) are marked where they land."},
+        {"grid", "Dyad grid", draw_grid_view,
+         "Every pair of notes (a dyad): how far, in cents, the extra tones the pair makes (resultants) "
+         "land from the nearest note of the tuning; 0 is exactly on a note."},
+        {"keys", "Keys", draw_keys_view,
+         "Each major and minor key of a 12-note tuning: how far its fifth and thirds are from pure, and "
+         "how many times a second they beat."},
+        {"sheet", "Sheet", draw_sheet_view,
+         "Tuning by ear: the order in which to set the notes, and the beats per second each interval "
+         "should make at the chosen pitch."}};
     // A shortcut or menu (view_forced) selects the tab; otherwise a clicked tab sets the view.
     const bool forced = app.view_forced;
     app.view_forced = false;
     if (ImGui::BeginTabBar("view_tabs")) {
         for (const Tab& t : tabs) {
             ImGuiTabItemFlags f = forced && app.session.view == t.id ? ImGuiTabItemFlags_SetSelected : 0;
-            if (ImGui::BeginTabItem(t.label, nullptr, f)) {
+            const bool open = ImGui::BeginTabItem(t.label, nullptr, f);
+            if (ImGui::IsItemHovered()) {
+                ImGui::BeginTooltip();
+                ImGui::PushTextWrapPos(ImGui::GetFontSize() * 32);
+                ImGui::TextUnformatted(t.help);
+                ImGui::PopTextWrapPos();
+                ImGui::EndTooltip();
+            }
+            if (open) {
                 if (!forced && app.session.view != t.id) {
                     set_view(app, t.id);
                     app.view_forced = false;

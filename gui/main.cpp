@@ -114,6 +114,7 @@ int main(int argc, char** argv) {
     int frame = 0;
     int exit_code = 0;
     const int screenshot_frame = 6; // layout and tab selection settle within a few frames
+    std::string frame_text;         // --screenshot-text: the words of the frame just drawn
     while (window.isOpen() && !app.quit && !stop_requested) {
         FrameBench::Marks m;
         m.start = FrameBench::Clock::now();
@@ -125,10 +126,13 @@ int main(int argc, char** argv) {
         platform_new_frame(io, window.getSize(), clock.restart().asSeconds());
         renderer_new_frame();
         ImGui::NewFrame();
+        const bool record_text = !opt.screenshot_text.empty();
+        if (record_text) begin_frame_text();
         m.analysis = FrameBench::Clock::now();
         refresh(app);
         m.drawing = FrameBench::Clock::now();
         draw_app(app);
+        if (record_text) frame_text = end_frame_text();
         ImGui::Render();
         m.rasterising = FrameBench::Clock::now();
         window.setActive(true);
@@ -147,6 +151,7 @@ int main(int argc, char** argv) {
             try {
                 if (shoot) {
                     save_window_png(image, opt.screenshot, opt.force);
+                    if (!opt.screenshot_text.empty()) save_frame_text(frame_text, opt.screenshot_text, opt.force);
                     std::printf("saved %s (%ux%u, view %s)\n", opt.screenshot.c_str(), image.getSize().x, image.getSize().y,
                                 app.session.view.c_str());
                     app.quit = true;

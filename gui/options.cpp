@@ -24,7 +24,11 @@ Options parse_options(int argc, char** argv) {
     app.add_option("--view", o.view, "Start in view lattice, grid, keys or sheet")
         ->check(CLI::IsMember(session_views));
     app.add_option("--select", o.select, "Select notes (numbers on the keyboard, 0 = degree 0 of the lowest period)");
-    app.add_option("--screenshot", o.screenshot, "Render the first stable frame, save it as PNG and exit");
+    auto* shot = app.add_option("--screenshot", o.screenshot, "Render the first stable frame, save it as PNG and exit");
+    app.add_option("--screenshot-text", o.screenshot_text,
+                   "With --screenshot: also save the text of that frame's panels and tables, one line per "
+                   "row as laid out (what tests read instead of the pixels)")
+        ->needs(shot);
     app.add_option("--bench-frames", o.bench_frames,
                    "Render N frames recomputing every view (keyboard of at least 88 notes, order 5) and "
                    "print milliseconds per frame")

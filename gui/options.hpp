@@ -12,6 +12,7 @@ struct Options {
     std::string session;              ///< --session FILE; empty: the default file (or none in batch runs)
     std::string view;                 ///< --view; empty: the session's
     std::string screenshot;           ///< --screenshot FILE
+    std::string screenshot_text;      ///< --screenshot-text FILE: the words drawn in that frame
     std::string select;               ///< --select N,N,...
     bool fresh = false;
     bool force = false;

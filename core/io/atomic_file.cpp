@@ -132,53 +132,86 @@ void check_target(const std::filesystem::path& path, Overwrite overwrite) {
 
 void write_file_atomically(const std::filesystem::path& path,
                            const std::function<void(std::ostream&)>& write, Overwrite overwrite) {
-    const SourcePos pos{path.string(), 0, 0};
     check_target(path, overwrite);
-    const std::filesystem::path target = write_target(path);
-    std::error_code ec;
-    const std::string unchanged = std::filesystem::exists(target, ec)
-                                      ? "; the existing file was not changed"
-                                      : "; no file was created";
-
     std::ostringstream buffer;
     write(buffer); // may throw; nothing is on disk yet
-    const std::string data = buffer.str();
+    write_files_together({{path, buffer.str()}}, overwrite);
+}
 
-    std::filesystem::path dir = target.parent_path();
-    if (dir.empty()) dir = ".";
-    remove_stale_temporaries(dir);
-    std::string tmpl = temporary_template(dir);
-    int fd = ::mkstemp(tmpl.data());
-    if (fd < 0) fail(pos, "cannot create a file in " + dir.string() + ": " + errno_text());
-    auto give_up = [&](const std::string& what) {
-        std::string reason = errno_text();
-        ::close(fd);
-        ::unlink(tmpl.c_str());
-        fail(pos, what + ": " + reason + unchanged);
+void write_files_together(const std::vector<FileAt>& files, Overwrite overwrite) {
+    namespace fs = std::filesystem;
+    for (const FileAt& f : files) check_target(f.path, overwrite);
+    struct Staged {
+        fs::path target;  // the file replaced: the end of a chain of links
+        std::string temp; // its temporary, beside it; empty once moved or removed
     };
-    if (!write_all(fd, data)) give_up("cannot write");
-    if (::fsync(fd) != 0) give_up("cannot flush to disk");
-    // mkstemp makes the file 0600; give it the usual permissions for a user's document.
-    ::fchmod(fd, 0644);
-    if (::close(fd) != 0) {
-        std::string reason = errno_text();
-        ::unlink(tmpl.c_str());
-        fail(pos, "cannot close: " + reason + unchanged);
-    }
-    if (overwrite == Overwrite::refuse) {
-        // link() fails if the target appeared meanwhile, so a concurrent file is never lost.
-        if (::link(tmpl.c_str(), target.c_str()) != 0) {
-            std::string reason = errno_text();
-            ::unlink(tmpl.c_str());
-            fail(pos, "cannot create: " + reason);
+    std::vector<Staged> staged;
+    auto remove_temporaries = [&] {
+        for (Staged& s : staged)
+            if (!s.temp.empty()) ::unlink(s.temp.c_str());
+    };
+    // What a failure leaves: one file says whether it existed; a set says none was touched.
+    auto unchanged_text = [&](const fs::path& target) -> std::string {
+        if (files.size() > 1) return "; none of the " + std::to_string(files.size()) + " files was written";
+        std::error_code ec;
+        return fs::exists(target, ec) ? "; the existing file was not changed" : "; no file was created";
+    };
+    // Phase 1: every file complete and flushed beside its target, under a temporary name.
+    for (const FileAt& f : files) {
+        const SourcePos pos{f.path.string(), 0, 0};
+        Staged s{write_target(f.path), {}};
+        fs::path dir = s.target.parent_path();
+        if (dir.empty()) dir = ".";
+        remove_stale_temporaries(dir);
+        std::string tmpl = temporary_template(dir);
+        const int fd = ::mkstemp(tmpl.data());
+        if (fd < 0) {
+            const std::string reason = errno_text();
+            remove_temporaries();
+            fail(pos, "cannot create a file in " + dir.string() + ": " + reason +
+                          (files.size() > 1 ? unchanged_text(s.target) : ""));
         }
-        ::unlink(tmpl.c_str());
-    } else if (std::rename(tmpl.c_str(), target.c_str()) != 0) {
-        std::string reason = errno_text();
-        ::unlink(tmpl.c_str());
-        fail(pos, "cannot replace: " + reason + unchanged);
+        s.temp = tmpl;
+        staged.push_back(s);
+        auto give_up = [&](const std::string& what) {
+            const std::string reason = errno_text();
+            ::close(fd);
+            remove_temporaries();
+            fail(pos, what + ": " + reason + unchanged_text(s.target));
+        };
+        if (!write_all(fd, f.data)) give_up("cannot write");
+        if (::fsync(fd) != 0) give_up("cannot flush to disk");
+        // mkstemp makes the file 0600; give it the usual permissions for a user's document.
+        ::fchmod(fd, 0644);
+        if (::close(fd) != 0) {
+            const std::string reason = errno_text();
+            remove_temporaries();
+            fail(pos, "cannot close: " + reason + unchanged_text(s.target));
+        }
     }
-    sync_folder(dir); // make the rename itself durable
+    // Phase 2: renames, which need no space; only a change on disk since the checks can make
+    // one fail.
+    for (std::size_t i = 0; i < staged.size(); ++i) {
+        Staged& s = staged[i];
+        const SourcePos pos{files[i].path.string(), 0, 0};
+        const bool refuse = overwrite == Overwrite::refuse;
+        // link() fails if the target appeared meanwhile, so a concurrent file is never lost.
+        const bool ok = refuse ? ::link(s.temp.c_str(), s.target.c_str()) == 0
+                               : std::rename(s.temp.c_str(), s.target.c_str()) == 0;
+        if (!ok) {
+            const std::string reason = errno_text();
+            remove_temporaries();
+            std::string note = i == 0 ? (refuse && files.size() == 1 ? "" : unchanged_text(s.target))
+                                      : "; already in place: " + std::to_string(i) + " of " +
+                                            std::to_string(files.size()) + " files, the first " +
+                                            files.front().path.string();
+            fail(pos, std::string(refuse ? "cannot create: " : "cannot replace: ") + reason + note);
+        }
+        if (refuse) ::unlink(s.temp.c_str());
+        s.temp.clear();
+        fs::path dir = s.target.parent_path();
+        sync_folder(dir.empty() ? fs::path(".") : dir); // make the rename itself durable
+    }
 }
 
 std::vector<std::filesystem::path> write_file_set(const std::filesystem::path& folder,

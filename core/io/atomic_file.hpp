@@ -32,6 +32,20 @@ void write_file_atomically(const std::filesystem::path& path,
                            const std::function<void(std::ostream&)>& write,
                            Overwrite overwrite = Overwrite::refuse);
 
+/// A file to write: where, and its bytes.
+struct FileAt {
+    std::filesystem::path path;
+    std::string data;
+};
+
+/// Writes several files in different folders all or nothing, as far as a file system allows:
+/// checks every target (check_target), writes and flushes every file beside its target under
+/// a temporary name, and only then renames them into place, so a full disk, an unwritable
+/// folder or a killed process leaves every target as it was. Only a rename failing (a change
+/// on disk since the checks) can leave some files in place; the message then says which.
+/// Throws InputError naming the file.
+void write_files_together(const std::vector<FileAt>& files, Overwrite overwrite);
+
 /// One file of a set: its name inside the set's folder and its bytes.
 struct FileContent {
     std::string name;

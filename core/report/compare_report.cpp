@@ -1,4 +1,5 @@
 #include "core/report/compare_report.hpp"
+#include "core/report/palette.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -219,11 +220,16 @@ J compare_json(const std::vector<ComparedTuning>& tunings, const CompareOptions&
 
 namespace {
 
-// Colours for up to twelve tunings, chosen to stay apart in print and for common colour
-// vision deficiencies as far as twelve can.
-const char* const palette[max_compared_tunings] = {"#1b6ca8", "#d1495b", "#e8a33d", "#00798c",
-                                                   "#5b8e3e", "#8d6a9f", "#2e4057", "#a05c34",
-                                                   "#e377c2", "#7f7f7f", "#17becf", "#bcbd22"};
+// One colour per tuning, of our own (core/report/palette.hpp): the first four stay apart for
+// the common colour-vision deficiencies; every plot also names each tuning in its colour.
+const std::vector<std::string>& palette() {
+    static const std::vector<std::string> colours = [] {
+        std::vector<std::string> out;
+        for (const Rgb& c : series_colours(max_compared_tunings)) out.push_back(hex_colour(c));
+        return out;
+    }();
+    return colours;
+}
 
 // Per-key bars: for each of the 12 keys in circle-of-fifths order, one bar per tuning of
 // the given third's cents from pure. Returns the y below the plot.
@@ -263,7 +269,7 @@ double bar_plot(Svg& svg, const std::vector<const ComparedTuning*>& ts, bool min
             svg.begin_group(ts[t]->name + ", " + key_name(Key{root, minor}, sp) + ": " +
                             signed_fixed(v, 3) + " c");
             svg.rect(gx + bar * static_cast<double>(t), y0, bar * 0.92, std::max(y1 - y0, 0.5),
-                     {palette[t], "", 0});
+                     {palette()[t], "", 0});
             svg.end_group();
         }
         std::string label = pitch_class_name(root, sp);
@@ -296,7 +302,7 @@ std::string compare_svg(const std::vector<ComparedTuning>& tunings, Spelling spe
     for (std::size_t t = 0; t < ts.size(); ++t) {
         double lx = margin + static_cast<double>(t % 2) * (width / 2),
                ly = y + 22.0 * static_cast<double>(t / 2);
-        svg.rect(lx, ly, 14, 14, {palette[t], "", 0});
+        svg.rect(lx, ly, 14, 14, {palette()[t], "", 0});
         std::string label =
             ts[t]->name + (ts[t]->description.empty() ? "" : ": " + ts[t]->description);
         if (label.size() > 60) label = label.substr(0, 57) + "...";
@@ -314,7 +320,7 @@ std::string compare_svg(const std::vector<ComparedTuning>& tunings, Spelling spe
         double cy = y + 230.0 * static_cast<double>(t / per_row) + 105;
         std::string name =
             ts[t]->name.size() > 28 ? ts[t]->name.substr(0, 25) + "..." : ts[t]->name;
-        svg.text(cx, cy - 95, name, {12, SvgFont::Anchor::middle, true, palette[t]});
+        svg.text(cx, cy - 95, name, {12, SvgFont::Anchor::middle, true, palette()[t]});
         draw_fifth_circle(svg, ts[t]->keys->circle, cx, cy, 68, spelling, 12);
     }
     return svg.str();

@@ -32,6 +32,12 @@ if [ "$man" = man ]; then
   # The page is the program's help: every subcommand the help lists appears in it.
   for sub in $("$root/bin/terzo" --help | awk '/^Subcommands:/ {on = 1; next} on && /^  [a-z]/ {print $1}'); do
     grep -q -- "$sub" "$page" || fail "terzo.1 does not mention the subcommand $sub"
+    # Each subcommand has its own page, made from its own --help (its options appear in it).
+    sub_page=$root/share/man/man1/terzo-$sub.1
+    [ -f "$sub_page" ] || fail "share/man/man1/terzo-$sub.1 missing"
+    grep -q '^\.SH OPTIONS\|^\.SH DESCRIPTION' "$sub_page" || fail "terzo-$sub.1 has no option section"
+    grep -q -e '--help' -e '\\-\\-help' "$sub_page" || fail "terzo-$sub.1 does not list --help"
+    grep -q "terzo-$sub" "$page" || fail "terzo.1 does not point to terzo-$sub(1)"
   done
 fi
 

@@ -246,3 +246,49 @@ TEST_CASE("a set that does not fit on the disk changes no file of the folder", "
     CHECK(files_in(dir) == 3); // no staging folder left
     fs::remove_all(dir);
 }
+
+TEST_CASE("files for several folders are all replaced, or none is when one does not fit", "[atomic_file]") {
+    fs::path dir = test::temp_folder("atomic-together");
+    fs::create_directories(dir / "a");
+    fs::create_directories(dir / "b");
+    write_files_together({{dir / "a" / "keys.csv", "old csv\n"}, {dir / "b" / "bulk.syx", "old syx\n"}}, Overwrite::refuse);
+    CHECK(test::slurp(dir / "a" / "keys.csv") == "old csv\n");
+    CHECK(test::slurp(dir / "b" / "bulk.syx") == "old syx\n");
+
+    // Refused before anything is written: the second target exists and overwriting is not allowed.
+    CHECK_THROWS_WITH(write_files_together({{dir / "a" / "new.scl", "x\n"}, {dir / "b" / "bulk.syx", "y\n"}}, Overwrite::refuse),
+                      (dir / "b" / "bulk.syx").string() + ": error: already exists and was not changed (allow overwriting to replace it)");
+    CHECK_FALSE(fs::exists(dir / "a" / "new.scl"));
+
+    pid_t child = ::fork();
+    REQUIRE(child >= 0);
+    if (child == 0) {
+        ::signal(SIGXFSZ, SIG_IGN);
+        rlimit limit{4096, 4096};
+        ::setrlimit(RLIMIT_FSIZE, &limit);
+        try {
+            // The first fits, the second does not: the first must not be replaced either.
+            write_files_together({{dir / "a" / "keys.csv", "new csv\n"}, {dir / "b" / "bulk.syx", std::string(1 << 20, 'x')}},
+                                 Overwrite::allow);
+        } catch (const InputError& e) {
+            const std::string what = e.what();
+            bool named = what.find("bulk.syx: error: cannot write") != std::string::npos &&
+                         what.find("none of the 2 files was written") != std::string::npos;
+            ::_exit(named ? 3 : 4);
+        }
+        ::_exit(0);
+    }
+    int status = 0;
+    ::waitpid(child, &status, 0);
+    REQUIRE(WIFEXITED(status));
+    CHECK(WEXITSTATUS(status) == 3);
+    CHECK(test::slurp(dir / "a" / "keys.csv") == "old csv\n");
+    CHECK(test::slurp(dir / "b" / "bulk.syx") == "old syx\n");
+    CHECK(files_in(dir / "a") == 1); // no temporary left beside either target
+    CHECK(files_in(dir / "b") == 1);
+
+    write_files_together({{dir / "a" / "keys.csv", "new csv\n"}, {dir / "b" / "bulk.syx", "new syx\n"}}, Overwrite::allow);
+    CHECK(test::slurp(dir / "a" / "keys.csv") == "new csv\n");
+    CHECK(test::slurp(dir / "b" / "bulk.syx") == "new syx\n");
+    fs::remove_all(dir);
+}
