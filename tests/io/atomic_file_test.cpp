@@ -2,6 +2,9 @@
 
 #include <filesystem>
 #include <fstream>
+#include <functional>
+#include <string>
+#include <vector>
 #include <stdexcept>
 #include <sys/wait.h>
 #include <unistd.h>
@@ -19,6 +22,30 @@ namespace fs = std::filesystem;
 namespace {
 std::size_t files_in(const fs::path& dir) {
     return static_cast<std::size_t>(std::distance(fs::directory_iterator(dir), fs::directory_iterator()));
+}
+
+// A full disk as the kernel reports it to a writer: RLIMIT_FSIZE of 4096 bytes makes write()
+// fail with EFBIG (SIGXFSZ ignored), in a child process only. Runs write there and says
+// whether it threw an InputError whose message holds every one of the fragments.
+bool fails_under_file_limit(const std::function<void()>& write, const std::vector<std::string>& fragments) {
+    pid_t child = ::fork();
+    REQUIRE(child >= 0);
+    if (child == 0) {
+        ::signal(SIGXFSZ, SIG_IGN);
+        rlimit limit{4096, 4096};
+        ::setrlimit(RLIMIT_FSIZE, &limit);
+        try {
+            write();
+        } catch (const InputError& e) {
+            bool named = true;
+            for (const std::string& f : fragments) named = named && std::string(e.what()).find(f) != std::string::npos;
+            ::_exit(named ? 3 : 4);
+        }
+        ::_exit(0);
+    }
+    int status = 0;
+    ::waitpid(child, &status, 0);
+    return WIFEXITED(status) && WEXITSTATUS(status) == 3;
 }
 } // namespace
 
@@ -83,30 +110,15 @@ TEST_CASE("a device, or a path under a file, is refused before anything is writt
 }
 
 TEST_CASE("a write that hits a file size limit leaves the old file intact", "[atomic_file]") {
-    // A full disk as the kernel reports it to a writer: RLIMIT_FSIZE makes write() fail with
-    // EFBIG once the limit is reached (SIGXFSZ ignored), in a child process only.
     fs::path dir = test::temp_folder("atomic-full");
     fs::path target = dir / "keep.txt";
     write_file_atomically(target, [](std::ostream& o) { o << "precious\n"; });
-    pid_t child = ::fork();
-    REQUIRE(child >= 0);
-    if (child == 0) {
-        ::signal(SIGXFSZ, SIG_IGN);
-        rlimit limit{4096, 4096};
-        ::setrlimit(RLIMIT_FSIZE, &limit);
-        try {
+    CHECK(fails_under_file_limit(
+        [&] {
             write_file_atomically(target, [](std::ostream& o) { o << std::string(1 << 20, 'x'); },
                                   Overwrite::allow);
-        } catch (const InputError& e) {
-            bool named = std::string(e.what()).find("cannot write") != std::string::npos;
-            ::_exit(named ? 3 : 4);
-        }
-        ::_exit(0);
-    }
-    int status = 0;
-    ::waitpid(child, &status, 0);
-    REQUIRE(WIFEXITED(status));
-    CHECK(WEXITSTATUS(status) == 3);
+        },
+        {"cannot write"}));
     CHECK(test::slurp(target) == "precious\n");
     CHECK(files_in(dir) == 1);
     fs::remove_all(dir);
@@ -220,27 +232,13 @@ TEST_CASE("a set of files is written all together, into a new folder or an exist
 TEST_CASE("a set that does not fit on the disk changes no file of the folder", "[atomic_file]") {
     fs::path dir = test::temp_folder("atomic-set-full");
     write_file_set(dir, {{"r-01.scl", "old 1\n"}, {"r-02.scl", "old 2\n"}, {"r-03.scl", "old 3\n"}}, Overwrite::refuse, "--write-scl");
-    pid_t child = ::fork();
-    REQUIRE(child >= 0);
-    if (child == 0) {
-        ::signal(SIGXFSZ, SIG_IGN);
-        rlimit limit{4096, 4096};
-        ::setrlimit(RLIMIT_FSIZE, &limit);
-        try {
-            // The first two fit, the third does not.
+    // The first two fit, the third does not.
+    CHECK(fails_under_file_limit(
+        [&] {
             write_file_set(dir, {{"r-01.scl", "new 1\n"}, {"r-02.scl", "new 2\n"}, {"r-03.scl", std::string(1 << 20, 'x')}},
                            Overwrite::allow, "--write-scl");
-        } catch (const InputError& e) {
-            bool named = std::string(e.what()).find("r-03.scl: error: cannot write") != std::string::npos &&
-                         std::string(e.what()).find("no file in the folder was created or changed") != std::string::npos;
-            ::_exit(named ? 3 : 4);
-        }
-        ::_exit(0);
-    }
-    int status = 0;
-    ::waitpid(child, &status, 0);
-    REQUIRE(WIFEXITED(status));
-    CHECK(WEXITSTATUS(status) == 3);
+        },
+        {"r-03.scl: error: cannot write", "no file in the folder was created or changed"}));
     CHECK(test::slurp(dir / "r-01.scl") == "old 1\n");
     CHECK(test::slurp(dir / "r-02.scl") == "old 2\n");
     CHECK(files_in(dir) == 3); // no staging folder left
@@ -260,28 +258,13 @@ TEST_CASE("files for several folders are all replaced, or none is when one does 
                       (dir / "b" / "bulk.syx").string() + ": error: already exists and was not changed (allow overwriting to replace it)");
     CHECK_FALSE(fs::exists(dir / "a" / "new.scl"));
 
-    pid_t child = ::fork();
-    REQUIRE(child >= 0);
-    if (child == 0) {
-        ::signal(SIGXFSZ, SIG_IGN);
-        rlimit limit{4096, 4096};
-        ::setrlimit(RLIMIT_FSIZE, &limit);
-        try {
-            // The first fits, the second does not: the first must not be replaced either.
+    // The first fits, the second does not: the first must not be replaced either.
+    CHECK(fails_under_file_limit(
+        [&] {
             write_files_together({{dir / "a" / "keys.csv", "new csv\n"}, {dir / "b" / "bulk.syx", std::string(1 << 20, 'x')}},
                                  Overwrite::allow);
-        } catch (const InputError& e) {
-            const std::string what = e.what();
-            bool named = what.find("bulk.syx: error: cannot write") != std::string::npos &&
-                         what.find("none of the 2 files was written") != std::string::npos;
-            ::_exit(named ? 3 : 4);
-        }
-        ::_exit(0);
-    }
-    int status = 0;
-    ::waitpid(child, &status, 0);
-    REQUIRE(WIFEXITED(status));
-    CHECK(WEXITSTATUS(status) == 3);
+        },
+        {"bulk.syx: error: cannot write", "none of the 2 files was written"}));
     CHECK(test::slurp(dir / "a" / "keys.csv") == "old csv\n");
     CHECK(test::slurp(dir / "b" / "bulk.syx") == "old syx\n");
     CHECK(files_in(dir / "a") == 1); // no temporary left beside either target
